@@ -1,0 +1,72 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { useSWRConfig } from 'swr';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { TextAreaField, TextField } from '@/components/ui/field';
+import { Panel } from '@/components/ui/panel';
+import { STUDIES_KEY } from '@/hooks/use-studies';
+import { applyServerErrors } from '@/components/forms/apply-server-errors';
+import { fetchJson } from '@/lib/client/fetch-json';
+import type { StudySummary } from '@/lib/data/studies';
+import type { StudyCreateInput } from '@/lib/validations/study';
+import { formFieldFor, studyFormSchema, type StudyFormInput, type StudyFormOutput } from './study-form-schema';
+
+/** Starts a study. The creator becomes its researcher and lands on the new study's page. */
+export function StudyCreateForm({ onCancel }: { onCancel: () => void }) {
+  const router = useRouter();
+  const { mutate } = useSWRConfig();
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<StudyFormInput, unknown, StudyFormOutput>({
+    resolver: zodResolver(studyFormSchema),
+    defaultValues: { name: '', summary: '', frequency: '' },
+  });
+
+  async function onSubmit({ name, summary, frequency }: StudyFormOutput) {
+    setFormError(null);
+    const body: StudyCreateInput = { name, summary, frequencyHz: frequency };
+    try {
+      const { study } = await fetchJson<{ study: StudySummary }>('/api/studies', { method: 'POST', body });
+      await mutate(STUDIES_KEY);
+      router.push(`/studies/${study.id}`);
+    } catch (error) {
+      setFormError(applyServerErrors(error, setError, formFieldFor));
+    }
+  }
+
+  return (
+    <Panel title="New study" description="You become the study's researcher and can invite the others.">
+      <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-4">
+        {formError && <Alert tone="error">{formError}</Alert>}
+        <div className="grid gap-4 lg:grid-cols-3">
+          <TextField label="Study name" autoFocus className="lg:col-span-2" error={errors.name?.message} {...register('name')} />
+          <TextField
+            label="Operating frequency"
+            placeholder="6.78 MHz"
+            hint="With a unit, e.g. 6.78 MHz or 85 kHz; a bare number is hertz. Optional."
+            error={errors.frequency?.message}
+            {...register('frequency')}
+          />
+        </div>
+        <TextAreaField label="Summary" hint="What the study sets out to measure. Optional." error={errors.summary?.message} {...register('summary')} />
+        <div className="flex gap-3">
+          <Button type="submit" variant="primary" disabled={isSubmitting}>
+            Create study
+          </Button>
+          <Button onClick={onCancel} disabled={isSubmitting}>
+            Cancel
+          </Button>
+        </div>
+      </form>
+    </Panel>
+  );
+}

@@ -1,0 +1,63 @@
+import 'server-only';
+import { ZodError, type ZodType } from 'zod';
+import { HttpError, unprocessable, type FieldIssue } from './errors';
+
+/** Field path of a zod issue as a dotted string ("members.0.email"); the body itself is "(body)". */
+export function issuePath(path: readonly PropertyKey[]): string {
+  return path.length === 0 ? '(body)' : path.map(String).join('.');
+}
+
+export function zodIssues(error: ZodError): FieldIssue[] {
+  return error.issues.map((issue) => ({ path: issuePath(issue.path), message: issue.message }));
+}
+
+/** A MariaDB duplicate-key error (unique index), which we answer with 409. */
+function isDuplicateKey(error: unknown): boolean {
+  return typeof error === 'object' && error !== null && (error as { code?: string }).code === 'ER_DUP_ENTRY';
+}
+
+/** Maps any thrown value to a JSON response: the user sees what to fix, never internals. */
+export function errorResponse(error: unknown): Response {
+  if (error instanceof ZodError) {
+    return Response.json({ error: 'Some fields need attention.', issues: zodIssues(error) }, { status: 422 });
+  }
+  if (error instanceof HttpError) {
+    return Response.json({ error: error.message, issues: error.issues }, { status: error.status });
+  }
+  if (isDuplicateKey(error)) {
+    return Response.json({ error: 'That already exists.', issues: [] }, { status: 409 });
+  }
+  console.error('Unhandled error in route handler', error);
+  return Response.json({ error: 'Something went wrong on our side. Try again.', issues: [] }, { status: 500 });
+}
+
+/** Reads and validates a JSON body; malformed JSON and schema failures become 422 with field paths. */
+export async function parseJsonBody<T>(request: Request, schema: ZodType<T>): Promise<T> {
+  let raw: unknown;
+  try {
+    raw = await request.json();
+  } catch {
+    throw unprocessable('The request body is not valid JSON.', [{ path: '(body)', message: 'Expected a JSON object.' }]);
+  }
+  return schema.parse(raw);
+}
+
+/** Parses a numeric route parameter (an id); anything else is a 404, like a missing row. */
+export function idParam(value: string): number {
+  if (!/^[1-9][0-9]{0,9}$/.test(value)) throw new HttpError(404, 'Not found.');
+  return Number(value);
+}
+
+/**
+ * Wraps a route handler so every error goes through errorResponse. Handlers keep the fixed order:
+ * params, auth, parse body, call lib, Response.json.
+ */
+export function route<C>(handler: (request: Request, context: C) => Promise<Response>) {
+  return async (request: Request, context: C): Promise<Response> => {
+    try {
+      return await handler(request, context);
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}

@@ -1,0 +1,39 @@
+import type { StudyRole } from '../auth/permissions';
+
+function escapeHtml(value: string): string {
+  return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] as string);
+}
+
+const ROLE_DESCRIPTIONS: Record<StudyRole, string> = {
+  researcher: 'describe the coils, predict the link and design sweep plans',
+  student: 'log bench readings and upload files against the plans',
+  supervisor: 'review predicted against measured results and accept or return plans',
+};
+
+export interface InvitationMailInput {
+  studyName: string;
+  inviterName: string;
+  role: StudyRole;
+  link: string;
+  expiresAt: Date;
+}
+
+/** The invitation e-mail: who invites, to which study, as what, the single-use link and its expiry. */
+export function invitationMail(input: InvitationMailInput): { subject: string; text: string; html: string } {
+  const expires = input.expiresAt.toUTCString();
+  const subject = `${input.inviterName} invited you to "${input.studyName}" on Couplet`;
+  const text = [
+    `${input.inviterName} invited you to join the study "${input.studyName}" on Couplet as ${input.role}.`,
+    `As ${input.role} you ${ROLE_DESCRIPTIONS[input.role]}.`,
+    '',
+    `Open this link to accept (it works once and expires ${expires}):`,
+    input.link,
+    '',
+    'If you did not expect this invitation, ignore this e-mail.',
+  ].join('\n');
+  const html = `<p>${escapeHtml(input.inviterName)} invited you to join the study <strong>${escapeHtml(input.studyName)}</strong> on Couplet as <strong>${input.role}</strong>.</p>
+<p>As ${input.role} you ${ROLE_DESCRIPTIONS[input.role]}.</p>
+<p><a href="${escapeHtml(input.link)}">Accept the invitation</a> (the link works once and expires ${escapeHtml(expires)}).</p>
+<p>If you did not expect this invitation, ignore this e-mail.</p>`;
+  return { subject, text, html };
+}
