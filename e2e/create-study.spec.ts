@@ -26,5 +26,5 @@ test('the form names the field that is wrong', async ({ page }) => {
   await page.getByLabel('Operating frequency').fill('fast');
   await page.getByRole('button', { name: 'Create study' }).click();
   await expect(page.getByText('Use at least 3 characters.')).toBeVisible();
-  await expect(page.getByRole('alert').filter({ hasText: /frequency/i }).first()).toBeVisible();
+  await expect(page.locator('main').getByRole('alert').filter({ hasText: /frequency/i }).first()).toBeVisible();
 });

@@ -7,9 +7,10 @@ test('an invitation e-mail reaches the local SMTP stand-in and its link works on
 
   await signIn(page, DEMO.researcher);
   await page.getByRole('link', { name: PAD_STUDY }).click();
-  await page.getByLabel('E-mail').fill(invitee);
-  await page.getByLabel('Role').selectOption('student');
-  await page.getByRole('button', { name: 'Send invitation' }).click();
+  const inviteForm = page.getByRole('region', { name: 'Invite someone' });
+  await inviteForm.getByLabel('E-mail', { exact: true }).fill(invitee);
+  await inviteForm.getByLabel('Role', { exact: true }).selectOption('student');
+  await inviteForm.getByRole('button', { name: 'Send invitation' }).click();
   await expect(page.getByRole('status').filter({ hasText: invitee })).toBeVisible();
 
   const message = await waitForMessageTo(invitee);
@@ -21,7 +22,7 @@ test('an invitation e-mail reaches the local SMTP stand-in and its link works on
   const inviteePage = await inviteeContext.newPage();
   await inviteePage.goto(link);
   await expect(inviteePage.getByText(PAD_STUDY).first()).toBeVisible();
-  await inviteePage.getByLabel('Name').fill('Amara Osei');
+  await inviteePage.getByLabel('Name', { exact: true }).fill('Amara Osei');
   await inviteePage.getByLabel('Password', { exact: true }).fill('compost-probe-42');
   await inviteePage.getByLabel('Repeat password').fill('compost-probe-42');
   await inviteePage.getByRole('button', { name: 'Create account and join' }).click();

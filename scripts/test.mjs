@@ -29,7 +29,9 @@ import { formatCounts, jestCounts, playwrightCounts } from './lib/test-results.m
 
 const argv = process.argv.slice(2);
 if (argv.includes('--help') || argv.includes('-h')) {
-  console.log(fs.readFileSync(new URL(import.meta.url), 'utf8').split('\n').slice(1, 16).map((l) => l.replace(/^\/\/ ?/, '')).join('\n'));
+  // The header comment of this file is the help text.
+  const lines = fs.readFileSync(new URL(import.meta.url), 'utf8').split('\n').slice(1);
+  console.log(lines.slice(0, lines.findIndex((l) => !l.startsWith('//'))).map((l) => l.replace(/^\/\/ ?/, '')).join('\n'));
   process.exit(0);
 }
 const unitOnly = argv.includes('--unit-only');

@@ -14,8 +14,8 @@ export const RAIL_STUDY = 'Irrigation-rail cart docking coil';
 
 export async function signIn(page: Page, account: { email: string; password: string }): Promise<void> {
   await page.goto('/signin');
-  await page.getByLabel('E-mail').fill(account.email);
-  await page.getByLabel('Password').fill(account.password);
+  await page.getByLabel('E-mail', { exact: true }).fill(account.email);
+  await page.getByLabel('Password', { exact: true }).fill(account.password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/dashboard$/);
   await expect(page.getByRole('heading', { name: 'My studies' })).toBeVisible();

@@ -70,7 +70,8 @@ export async function seedIfFresh(inst, env, ownServer) {
   const n = await userCount(inst, env, ownServer);
   if (n === null) info('no users table after migrating; running the seeds anyway');
   if (n) {
-    info(`database already has ${n} user(s): seeds skipped (delete ${rel(inst.root, inst.dir)} to start over)`);
+    const startOver = ownServer ? ` (to start over: stop, delete ${rel(inst.root, inst.mariadbDir)}, start)` : '';
+    info(`database already has ${n} user(s): seeds skipped${startOver}`);
     return;
   }
   await seed(inst, env);

@@ -46,6 +46,32 @@ async function withInstallLock(root, fn) {
   }
 }
 
+/**
+ * A developer who ran `npm install` has a node_modules that matches the lock although our stamp is
+ * missing or old. npm records what it installed in node_modules/.package-lock.json: if that lists
+ * exactly the lock's packages and versions (platform-specific optional ones may be absent) and they
+ * are all on disk, adopt the tree instead of reinstalling everything.
+ */
+function installedTreeMatchesLock(root) {
+  try {
+    const lock = JSON.parse(fs.readFileSync(path.join(root, 'package-lock.json'), 'utf8')).packages;
+    const installed = JSON.parse(fs.readFileSync(path.join(root, 'node_modules', '.package-lock.json'), 'utf8')).packages;
+    if (!lock || !installed) return false;
+    for (const [key, entry] of Object.entries(lock)) {
+      if (!key) continue; // the root project itself
+      const got = installed[key];
+      if (!got ? !entry.optional : got.version !== entry.version) return false;
+    }
+    for (const [key, entry] of Object.entries(installed)) {
+      if (!lock[key] || lock[key].version !== entry.version) return false;
+      if (!fs.existsSync(path.join(root, key))) return false;
+    }
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 export function depsUpToDate(root) {
   const stamp = path.join(root, 'node_modules', '.couplet-lock-hash');
   if (!fs.existsSync(path.join(root, 'package-lock.json'))) return false;
@@ -56,6 +82,12 @@ export function depsUpToDate(root) {
 export async function ensureNodeModules(root, logsDir, baseEnv = process.env) {
   if (depsUpToDate(root)) {
     ok('npm dependencies are up to date');
+    return;
+  }
+  const binsPresent = REQUIRED_BINS.every((b) => fs.existsSync(path.join(root, 'node_modules', '.bin', b)));
+  if (binsPresent && installedTreeMatchesLock(root)) {
+    writeStamp(path.join(root, 'node_modules', '.couplet-lock-hash'), lockHash(root));
+    ok('npm dependencies match package-lock.json (installed by npm install)');
     return;
   }
   await withInstallLock(root, async () => {

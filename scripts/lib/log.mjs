@@ -38,15 +38,19 @@ export function rel(root, p) {
   return r && !r.startsWith('..') ? r : p;
 }
 
-/** Last `n` lines of a (possibly large) log file, reading only its end. */
-export function tailFile(file, n = 40) {
+/**
+ * Last `n` lines of a (possibly large) log file, reading only its end, and nothing before byte
+ * `from` (logs that are appended to across runs: show only this run's part).
+ */
+export function tailFile(file, n = 40, from = 0) {
   try {
     const fd = fs.openSync(file, 'r');
     try {
       const size = fs.fstatSync(fd).size;
-      const len = Math.min(size, 64 * 1024);
+      const start = Math.max(from <= size ? from : 0, size - 64 * 1024);
+      const len = size - start;
       const buf = Buffer.alloc(len);
-      fs.readSync(fd, buf, 0, len, size - len);
+      fs.readSync(fd, buf, 0, len, start);
       // Strip ANSI colour codes so the tail is readable in any terminal or CI log.
       const text = buf.toString('utf8').replace(/\x1b\[[0-9;]*[A-Za-z]/g, '');
       return text.split(/\r?\n/).filter((l, i, a) => !(i === a.length - 1 && l === '')).slice(-n);
@@ -59,7 +63,8 @@ export function tailFile(file, n = 40) {
 }
 
 /**
- * A failed step. `logs` are files whose tails are printed by the top-level handler,
+ * A failed step. `logs` are files (or { file, from } to skip earlier runs' lines) whose tails are
+ * printed by the top-level handler,
  * `hint` is a sentence telling the developer what to do about it.
  */
 export class StepError extends Error {
@@ -76,10 +81,11 @@ export class StepError extends Error {
 export function reportError(err, root) {
   if (err instanceof StepError) {
     fail(`${bold(`Step "${err.stepName}" failed:`)} ${err.message}`);
-    for (const log of err.logs) {
-      const lines = tailFile(log, 30);
+    for (const entry of err.logs) {
+      const { file, from = 0 } = typeof entry === 'string' ? { file: entry } : entry;
+      const lines = tailFile(file, 30, from);
       if (!lines.length) continue;
-      console.error(dim(`---- last ${lines.length} lines of ${rel(root, log)} ----`));
+      console.error(dim(`---- last ${lines.length} lines of ${rel(root, file)} ----`));
       for (const l of lines) console.error(dim('| ') + l);
       console.error(dim('---- end ----'));
     }

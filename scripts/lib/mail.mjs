@@ -16,6 +16,10 @@ export async function startMail(inst, env) {
   step(`starting the mail stand-in (SMTP 127.0.0.1:${inst.smtpPort}, inbox ${inst.inboxUrl})…`);
   const logFile = path.join(inst.logsDir, 'mail.log');
   const pidFile = path.join(inst.runDir, 'mail.pid');
+  let from = 0; // mail.log is appended to across runs: on failure show this run's lines only
+  try {
+    from = fs.statSync(logFile).size;
+  } catch {}
   const child = startService({
     title: 'mail stand-in',
     cmd: process.execPath,
@@ -44,13 +48,13 @@ export async function startMail(inst, env) {
       check: () => {
         if (hasExited(child)) {
           throw new StepError('start mail stand-in', `mail-server.mjs exited (code ${child.exitCode ?? child.signalCode})`, {
-            logs: [logFile],
+            logs: [{ file: logFile, from }],
           });
         }
       },
     },
   );
-  if (!up) throw new StepError('start mail stand-in', 'no answer within 30 s', { logs: [logFile] });
+  if (!up) throw new StepError('start mail stand-in', 'no answer within 30 s', { logs: [{ file: logFile, from }] });
   ok(`mail stand-in is up (pid ${child.pid}, messages in ${rel(inst.root, inst.mailDir)})`);
   return child;
 }

@@ -128,6 +128,12 @@ export async function startMariaDb(inst) {
   }
 
   step(`starting MariaDB on 127.0.0.1:${inst.dbPort}…`);
+  // The error log is appended to across runs; a failure shows only this start's lines.
+  let from = 0;
+  try {
+    from = fs.statSync(errorLog(inst)).size;
+  } catch {}
+  const thisRunLog = { file: errorLog(inst), from };
   const child = startService({
     title: 'mariadbd',
     cmd: t.mariadbd,
@@ -158,14 +164,14 @@ export async function startMariaDb(inst) {
     check: () => {
       if (hasExited(child)) {
         throw new StepError('start MariaDB', `mariadbd exited (code ${child.exitCode ?? child.signalCode}) while starting`, {
-          logs: [errorLog(inst)],
+          logs: [thisRunLog],
           hint: `logs are in ${rel(inst.root, inst.logsDir)}/`,
         });
       }
     },
   });
   if (!ready) {
-    throw new StepError('start MariaDB', 'mariadbd did not become ready within 60 s', { logs: [errorLog(inst)] });
+    throw new StepError('start MariaDB', 'mariadbd did not become ready within 60 s', { logs: [thisRunLog] });
   }
   if (fresh) {
     await secureAccounts(inst);

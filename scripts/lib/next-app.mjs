@@ -150,7 +150,7 @@ export async function startNext(inst, env, { dev = false } = {}) {
       check: () => {
         if (hasExited(child)) {
           throw new StepError('start Next', `next exited (code ${child.exitCode ?? child.signalCode}) while starting`, {
-            logs: [logFile],
+            logs: [{ file: logFile, from: logOffset }],
           });
         }
       },
@@ -158,7 +158,7 @@ export async function startNext(inst, env, { dev = false } = {}) {
   );
   if (!healthy) {
     throw new StepError('start Next', `GET ${inst.appUrl}/api/health did not answer 200 within ${timeoutMs / 1000} s (last: ${last})`, {
-      logs: [logFile],
+      logs: [{ file: logFile, from: logOffset }],
       hint: 'the app must serve GET /api/health with 200 (src/app/api/health/route.ts)',
     });
   }

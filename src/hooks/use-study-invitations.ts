@@ -12,5 +12,6 @@ export function useStudyInvitations(studyId: number, initial?: PendingInvitation
   const { data, error, isLoading, mutate } = useSWR<{ invitations: PendingInvitation[] }, ApiError>(studyInvitationsKey(studyId), {
     fallbackData: initial && { invitations: initial },
   });
-  return { invitations: data?.invitations, error, isLoading, mutate };
+  // With server-read fallback data there is something to show even while the first request runs.
+  return { invitations: data?.invitations, error, isLoading: isLoading && !data, mutate };
 }

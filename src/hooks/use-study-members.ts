@@ -12,5 +12,6 @@ export function useStudyMembers(studyId: number, initial?: StudyMember[]) {
   const { data, error, isLoading, mutate } = useSWR<{ members: StudyMember[] }, ApiError>(studyMembersKey(studyId), {
     fallbackData: initial && { members: initial },
   });
-  return { members: data?.members, error, isLoading, mutate };
+  // With server-read fallback data there is something to show even while the first request runs.
+  return { members: data?.members, error, isLoading: isLoading && !data, mutate };
 }

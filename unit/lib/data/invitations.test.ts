@@ -6,6 +6,7 @@ import {
   viewInvitation,
 } from '../../../src/lib/data/invitations';
 import { listMembers } from '../../../src/lib/data/members';
+import { createStudy } from '../../../src/lib/data/studies';
 import { db, SEEDED, sessionUserByEmail, statusOf, studyIdByName } from '../../support/database';
 import { appLinkIn, messagesTo } from '../../support/inbox';
 
@@ -40,17 +41,19 @@ describe('invitations', () => {
   });
 
   it('a new person gets an e-mail whose link works exactly once', async () => {
-    const supervisor = await sessionUserByEmail(SEEDED.supervisor);
+    // A study of its own, so the seeded study's member list stays as other suites expect it.
+    const researcher = await sessionUserByEmail(SEEDED.researcher);
+    const study = await createStudy(researcher, { name: 'Invitation drill', summary: '', frequencyHz: null });
     const address = 'liang.unit@lab.test';
-    await createInvitation(supervisor, padStudy, { email: address, role: 'student' });
-    expect((await listPendingInvitations(supervisor, padStudy)).map((i) => i.email)).toContain(address);
+    await createInvitation(researcher, study.id, { email: address, role: 'student' });
+    expect((await listPendingInvitations(researcher, study.id)).map((i) => i.email)).toContain(address);
 
     const token = tokenFrom(await latestInvitationLink(address));
     const view = await viewInvitation(token);
-    expect(view).toMatchObject({ status: 'valid', email: address, role: 'student', studyName: SEEDED.padStudy, accountExists: false });
+    expect(view).toMatchObject({ status: 'valid', email: address, role: 'student', studyName: 'Invitation drill', accountExists: false });
 
     await acceptInvitationWithNewAccount(token, { name: 'Liang Unit', password: 'a-good-long-password' });
-    const members = await listMembers(supervisor, padStudy);
+    const members = await listMembers(researcher, study.id);
     expect(members.find((m) => m.email === address)?.role).toBe('student');
     expect((await viewInvitation(token)).status).toBe('used');
 

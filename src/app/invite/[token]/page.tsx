@@ -18,7 +18,7 @@ type Params = Promise<{ token: string }>;
 
 const UNUSABLE: Record<Exclude<InvitationView['status'], 'valid'>, string> = {
   expired: 'This invitation has expired. Ask the person who invited you to send a new one.',
-  used: 'This invitation has already been used. If it was you, sign in to open the study.',
+  used: 'This invitation has already been used. If you accepted it, the study is in your list of studies.',
   revoked: 'This invitation was withdrawn. Ask the person who invited you if you still need access.',
 };
 
@@ -64,8 +64,8 @@ export default async function InvitationPage({ params }: { params: Params }) {
         {invitation.status !== 'valid' ? (
           <div className="space-y-3">
             <Alert tone="caution">{UNUSABLE[invitation.status]}</Alert>
-            <Link href="/signin" className="text-sm font-medium text-flux-700 hover:underline">
-              Go to sign in
+            <Link href={user ? '/dashboard' : '/signin'} className="text-sm font-medium text-flux-700 hover:underline">
+              {user ? 'Go to your studies' : 'Go to sign in'}
             </Link>
           </div>
         ) : !invitation.accountExists ? (
