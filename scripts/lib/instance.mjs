@@ -27,9 +27,30 @@ const SETTINGS = {
 
 export const MARKER = 'COUPLET_INSTANCE_DIR';
 
+/**
+ * COUPLET_PORT_OFFSET shifts every port of an instance, so several checkouts (parallel work trees,
+ * CI jobs on one host) can each run their own `npm test` at the same time.
+ */
+function portOffset() {
+  const raw = process.env.COUPLET_PORT_OFFSET ?? '0';
+  const offset = Number(raw);
+  if (!Number.isInteger(offset) || offset < 0 || offset > 20000) {
+    throw new Error(`COUPLET_PORT_OFFSET must be a whole number from 0 to 20000 (got "${raw}")`);
+  }
+  return offset;
+}
+
 export function getInstance(name) {
-  const s = SETTINGS[name];
-  if (!s) throw new Error(`unknown instance ${name}`);
+  const base = SETTINGS[name];
+  if (!base) throw new Error(`unknown instance ${name}`);
+  const offset = portOffset();
+  const s = {
+    ...base,
+    dbPort: base.dbPort + offset,
+    smtpPort: base.smtpPort + offset,
+    inboxPort: base.inboxPort + offset,
+    appPort: base.appPort + offset,
+  };
   const dir = path.join(ROOT, '.data', name);
   const mariadbDir = path.join(dir, 'mariadb');
   // A Unix socket path must fit in sun_path (108 bytes). In a deeply nested checkout fall back to
