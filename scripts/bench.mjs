@@ -2,7 +2,8 @@
 /**
  * Solver benchmark (issue 3): median time of one solve of two 20-turn helices (radius 5 cm, length 4 cm,
  * 12 cm apart) at tolerance 1e-6 and 1e-4, against a naive straight-segment midpoint Neumann sum with
- * 256 segments a turn on the same paths, with each one's error against a 1e-12 reference.
+ * 256 segments a turn on the same paths, with each one's error against a 1e-12 reference; then the
+ * 441-placement sweep in this thread and through the solver's worker-thread pool (bench-sweep.mjs).
  * Runs the TypeScript sources directly: .ts files are compiled on require by @swc/core (a dev dependency).
  * Usage: node scripts/bench.mjs [--runs N]
  */
@@ -10,6 +11,7 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { sweepRows } from './bench-sweep.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const require = createRequire(import.meta.url);
@@ -107,3 +109,14 @@ const speedup = naive.ms / tight.ms;
 const accuracy = rel(naive.result.value) / Math.max(rel(tight.result.mutualInductance), Number.EPSILON);
 console.log(`\nsolve at 1e-6 vs naive sum: ${speedup.toFixed(1)}x faster (target >= 50), ${accuracy.toExponential(2)}x more accurate (target >= 100)`);
 console.log(`live setting 1e-4: ${live.ms.toFixed(3)} ms (target < 5 ms)`);
+
+const sweep = await sweepRows(require, root);
+console.log(`\n441 placements: two 20-turn helices (as above), tilt 0-90 deg by 4.5 x distance 12-32 cm by 1 cm, tolerance 1e-6`);
+console.log(`median of 3 sweeps, ${sweep.cpus} CPUs; every placement's M compared with this thread's\n`);
+console.log(`${pad('sweep', 40)}${pad('median ms', 12)}${pad('ms / placement', 16)}${pad('max |dM/M| vs thread', 22)}evaluations`);
+for (const [name, ms, deviation, evals] of sweep.rows) {
+  console.log(`${pad(name, 40)}${pad(ms.toFixed(1), 12)}${pad((ms / 441).toFixed(3), 16)}${pad(deviation.toExponential(1), 22)}${evals}`);
+}
+for (const note of sweep.notes) console.log(note);
+const served = sweep.rows.find(([name]) => name.includes('server default'));
+console.log(`\n441-point sweep through the server's pool: ${served[1].toFixed(0)} ms (target < 2000 ms)`);

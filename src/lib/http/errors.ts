@@ -12,6 +12,8 @@ export class HttpError extends Error {
     readonly status: number,
     message: string,
     readonly issues: FieldIssue[] = [],
+    /** Response headers that belong with this error, such as Retry-After on a 503. */
+    readonly headers: Record<string, string> = {},
   ) {
     super(message);
     this.name = 'HttpError';

@@ -1,5 +1,6 @@
 import 'server-only';
 import { ZodError, type ZodType } from 'zod';
+import { readBodyText } from './body-limit';
 import { HttpError, unprocessable, type FieldIssue } from './errors';
 
 /** Field path of a zod issue as a dotted string ("members.0.email"); the body itself is "(body)". */
@@ -22,7 +23,7 @@ export function errorResponse(error: unknown): Response {
     return Response.json({ error: 'Some fields need attention.', issues: zodIssues(error) }, { status: 422 });
   }
   if (error instanceof HttpError) {
-    return Response.json({ error: error.message, issues: error.issues }, { status: error.status });
+    return Response.json({ error: error.message, issues: error.issues }, { status: error.status, headers: error.headers });
   }
   if (isDuplicateKey(error)) {
     return Response.json({ error: 'That already exists.', issues: [] }, { status: 409 });
@@ -31,11 +32,18 @@ export function errorResponse(error: unknown): Response {
   return Response.json({ error: 'Something went wrong on our side. Try again.', issues: [] }, { status: 500 });
 }
 
-/** Reads and validates a JSON body; malformed JSON and schema failures become 422 with field paths. */
-export async function parseJsonBody<T>(request: Request, schema: ZodType<T>): Promise<T> {
+/** Largest JSON body a route reads unless it asks for another limit. */
+export const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
+
+/**
+ * Reads and validates a JSON body; malformed JSON and schema failures become 422 with field paths,
+ * and a body over `maxBytes` is refused with 413 before it is parsed.
+ */
+export async function parseJsonBody<T>(request: Request, schema: ZodType<T>, maxBytes = DEFAULT_MAX_BODY_BYTES): Promise<T> {
+  const text = await readBodyText(request, maxBytes);
   let raw: unknown;
   try {
-    raw = await request.json();
+    raw = JSON.parse(text);
   } catch {
     throw unprocessable('The request body is not valid JSON.', [{ path: '(body)', message: 'Expected a JSON object.' }]);
   }

@@ -1,0 +1,19 @@
+import { requireUser } from '@/lib/auth/session';
+import { parseJsonBody, route } from '@/lib/http/respond';
+import { solveOnServer } from '@/lib/solver-pool/server-pool';
+import { MAX_SOLVE_BODY_BYTES, solveRequestSchema } from '@/lib/validations/solve';
+
+export const dynamic = 'force-dynamic';
+/** worker_threads: the Node.js runtime, never the edge one. */
+export const runtime = 'nodejs';
+
+/**
+ * Coupling, link and (when asked) field and frequency response for two coils (PRODUCT.md, "POST
+ * /api/solve"), computed on a worker thread so a heavy solve never blocks other requests. A full
+ * queue answers 503 with Retry-After (SolverBusyError carries the header).
+ */
+export const POST = route(async (request: Request) => {
+  await requireUser();
+  const input = await parseJsonBody(request, solveRequestSchema, MAX_SOLVE_BODY_BYTES);
+  return Response.json(await solveOnServer(input));
+});
