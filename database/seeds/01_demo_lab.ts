@@ -1,5 +1,6 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
+import { awgDiameter } from '../../src/lib/units/awg';
 
 /**
  * Demo data: an invented lab, the "Fernbrook Soil Robotics group", charging buried soil-moisture
@@ -20,7 +21,7 @@ const SEED_BCRYPT_COST = 10;
 
 export async function seed(knex: Knex): Promise<void> {
   // Children first, so foreign keys never block the reset.
-  for (const table of ['audit_events', 'invitations', 'study_members', 'studies', 'sign_in_limits', 'users']) {
+  for (const table of ['audit_events', 'invitations', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
     await knex(table).del();
   }
 
@@ -57,8 +58,40 @@ export async function seed(knex: Knex): Promise<void> {
   });
   await knex('study_members').insert([{ study_id: railStudy, user_id: ids.otherResearcher, role: 'researcher' }]);
 
+  // The pad study's coil library (invented, plausible sizes; SI units as the solver takes them) and one
+  // saved setup. Gauge diameters come from the same ASTM B258 formula the forms use.
+  const coil = (name: string, spec: Record<string, unknown>, wireLabel: string, extra: Record<string, unknown> = {}) => ({
+    study_id: padStudy, name, kind: spec.kind, spec: JSON.stringify(spec), wire_label: wireLabel, created_by: ids.researcher, ...extra,
+  });
+  const [padCoil] = await knex('coils').insert(
+    coil('Bench pad, flat spiral', { kind: 'spiral', innerRadius: 0.03, outerRadius: 0.14, turns: 8, wireDiameter: awgDiameter(16) }, 'AWG 16', {
+      measured_inductance_h: 11.6e-6, measured_resistance_ohm: 0.94, measured_q: 526, measured_at_hz: 6.78e6,
+      notes: 'Wound on a 3 mm PVC sheet under tray row B.',
+    }),
+  );
+  const [probeCoil] = await knex('coils').insert(
+    coil('Probe helix, 12 turns', { kind: 'helix', radius: 0.012, turns: 12, length: 0.03, wireDiameter: awgDiameter(22) }, 'AWG 22', {
+      measured_inductance_h: 2.21e-6, measured_resistance_ohm: 0.41, measured_q: 230, measured_at_hz: 6.78e6,
+      notes: 'Inside the probe cap; the probe body is the former.',
+    }),
+  );
+  await knex('coils').insert(coil('Probe loop, single turn', { kind: 'loop', radius: 0.015, wireDiameter: awgDiameter(18) }, 'AWG 18'));
+  const [deepSetup] = await knex('setups').insert({
+    study_id: padStudy,
+    name: 'Probe 10 cm deep, upright',
+    transmitter_coil_id: padCoil,
+    receiver_coil_id: probeCoil,
+    placement: JSON.stringify({ distance: 0.1, lateralOffset: 0, tiltDeg: 0 }),
+    circuit: JSON.stringify({ frequency: 6.78e6, topology: 'SS', sourceVoltage: 5, sourceResistance: 0.5, loadResistance: 50 }),
+    operator_point: JSON.stringify([0.4, 0, 0.3]),
+    view: JSON.stringify({ position: [0.35, -0.45, 0.3], target: [0, 0, 0.05] }),
+    notes: 'The deepest planned probe position, probe standing straight.',
+    created_by: ids.researcher,
+  });
+
   await knex('audit_events').insert([
     { study_id: padStudy, actor_id: ids.researcher, action: 'study.create', target_table: 'studies', target_id: String(padStudy), details: JSON.stringify({ seeded: true }) },
     { study_id: railStudy, actor_id: ids.otherResearcher, action: 'study.create', target_table: 'studies', target_id: String(railStudy), details: JSON.stringify({ seeded: true }) },
+    { study_id: padStudy, actor_id: ids.researcher, action: 'setup.create', target_table: 'setups', target_id: String(deepSetup), details: JSON.stringify({ seeded: true }) },
   ]);
 }

@@ -14,4 +14,6 @@ export type { FieldPointResult } from './field-exposure';
 export { DEFAULT_EXPOSURE_TABLE, assessExposure } from './exposure-limits';
 export type { ExposureAssessment, ExposureRow, Population } from './exposure-limits';
 export { DEFAULT_TOLERANCE } from './neumann';
+export { coilProperties } from './coil-properties';
+export type { CoilProperties } from './coil-properties';
 export type * from './types';

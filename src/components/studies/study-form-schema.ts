@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { studyCreateSchema } from '@/lib/validations/study';
-import { parseFrequency } from './parse-frequency';
+import { parseQuantity } from '@/lib/units';
 
 /**
  * The create-study form: the server's studyCreateSchema, except that the frequency is typed as text
@@ -11,15 +11,12 @@ export const studyFormSchema = studyCreateSchema.omit({ frequencyHz: true }).ext
   frequency: z
     .string()
     .transform((text, context) => {
-      const parsed = parseFrequency(text);
+      const parsed = parseQuantity(text, 'frequency', { field: 'Operating frequency' });
       if (!parsed.ok) {
-        context.addIssue({
-          code: 'custom',
-          message: `Operating frequency: "${text.trim()}" is not a frequency. Write a number and a unit, such as 6.78 MHz or 85 kHz.`,
-        });
+        context.addIssue({ code: 'custom', message: parsed.message });
         return z.NEVER;
       }
-      return parsed.hertz;
+      return parsed.value;
     })
     // The server's rule without its "missing means null" default: the text was already read above.
     .pipe(studyCreateSchema.shape.frequencyHz.unwrap().unwrap()),

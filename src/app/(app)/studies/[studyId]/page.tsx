@@ -1,37 +1,15 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
-import { cache } from 'react';
 import { MembersSection } from '@/components/members/members-section';
-import { formatFrequency } from '@/components/studies/format-frequency';
 import { RoleBadge } from '@/components/studies/role-badge';
+import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
+import { StudyNav } from '@/components/studies/study-nav';
 import { PageHeader } from '@/components/ui/page-header';
-import { getSessionUser } from '@/lib/auth/session';
-import type { SessionUser } from '@/lib/auth/session-user';
+import { loadStudyPage as loadStudy } from '@/lib/auth/study-page';
 import { listPendingInvitations } from '@/lib/data/invitations';
 import { listMembers } from '@/lib/data/members';
-import { getStudy, type StudyDetail } from '@/lib/data/studies';
-import { HttpError } from '@/lib/http/errors';
+import { formatFrequency } from '@/lib/units';
 
 type Params = Promise<{ studyId: string }>;
-
-/**
- * One study for the signed-in viewer, or notFound() when it does not exist or they are not on it
- * (the same answer, so a study's existence is not disclosed). Cached so metadata and page share one query.
- */
-const loadStudy = cache(async (rawId: string): Promise<{ study: StudyDetail; user: SessionUser }> => {
-  const user = await getSessionUser();
-  if (!user) redirect('/signin');
-  if (!/^[1-9][0-9]{0,9}$/.test(rawId)) notFound();
-  let study: StudyDetail;
-  try {
-    study = await getStudy(user, Number(rawId));
-  } catch (error) {
-    if (error instanceof HttpError && error.status === 404) notFound();
-    throw error;
-  }
-  return { study, user };
-});
 
 export async function generateMetadata({ params }: { params: Params }): Promise<Metadata> {
   const { study } = await loadStudy((await params).studyId);
@@ -49,13 +27,7 @@ export default async function StudyPage({ params }: { params: Params }) {
   return (
     <div className="space-y-8">
       <div className="space-y-3">
-        <nav aria-label="Breadcrumb" className="text-sm text-ink-500">
-          <Link href="/dashboard" className="hover:text-ink-800 hover:underline">
-            Studies
-          </Link>
-          <span aria-hidden="true"> / </span>
-          <span className="text-ink-700">{study.name}</span>
-        </nav>
+        <StudyBreadcrumb studyId={study.id} studyName={study.name} />
         <PageHeader title={study.name} description={study.summary || undefined} />
         <dl className="flex flex-wrap gap-x-8 gap-y-2 text-sm">
           <div className="flex items-center gap-2">
@@ -71,6 +43,7 @@ export default async function StudyPage({ params }: { params: Params }) {
           Your role: <RoleBadge role={study.myRole} />
         </p>
       </div>
+      <StudyNav studyId={study.id} />
       <MembersSection studyId={study.id} viewerId={user.id} canManage={canManage} members={members} invitations={invitations} />
     </div>
   );
