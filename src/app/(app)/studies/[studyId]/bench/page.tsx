@@ -1,0 +1,50 @@
+import type { Metadata } from 'next';
+import { Suspense } from 'react';
+import { BenchWorkspace } from '@/components/bench/bench-workspace';
+import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
+import { StudyNav } from '@/components/studies/study-nav';
+import { PageHeader } from '@/components/ui/page-header';
+import { Skeleton } from '@/components/ui/skeleton';
+import { loadStudyPage } from '@/lib/auth/study-page';
+import { listCoils } from '@/lib/data/coils';
+import { listSetups } from '@/lib/data/setups';
+import { formatFrequency } from '@/lib/units';
+
+type Params = Promise<{ studyId: string }>;
+
+export async function generateMetadata({ params }: { params: Params }): Promise<Metadata> {
+  const { study } = await loadStudyPage((await params).studyId);
+  return { title: `Bench · ${study.name}` };
+}
+
+/**
+ * The 3D placement bench of a study. Every member may open setups and move the receiver; saving needs
+ * 'study.edit' (the API checks again). Non-members get the same 404 as for a study that does not exist.
+ */
+export default async function BenchPage({ params }: { params: Params }) {
+  const { study, user } = await loadStudyPage((await params).studyId);
+  const canEdit = study.allowedActions.includes('study.edit');
+  const [coils, setups] = await Promise.all([listCoils(user, study.id), listSetups(user, study.id)]);
+
+  return (
+    <div className="space-y-6">
+      <div className="space-y-3">
+        <StudyBreadcrumb studyId={study.id} studyName={study.name} page="Bench" />
+        <PageHeader
+          title="Placement bench"
+          description={
+            <>
+              Place the receiver against the transmitter and read the link as it moves
+              {study.frequencyHz !== null ? <> (study frequency {formatFrequency(study.frequencyHz)})</> : null}.
+            </>
+          }
+        />
+      </div>
+      <StudyNav studyId={study.id} />
+      {/* useSearchParams (?setup=) needs a boundary of its own */}
+      <Suspense fallback={<Skeleton label="Loading the bench" rows={4} />}>
+        <BenchWorkspace studyId={study.id} studyFrequencyHz={study.frequencyHz} canEdit={canEdit} initialCoils={coils} initialSetups={setups} />
+      </Suspense>
+    </div>
+  );
+}
