@@ -1,7 +1,6 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -10,7 +9,8 @@ import { Panel } from '@/components/ui/panel';
 import { optionsFrom, SelectField } from '@/components/ui/select';
 import { useAccounts } from '@/hooks/use-accounts';
 import { SITE_ROLES, type SiteRole } from '@/lib/auth/permissions';
-import { applyServerErrors, sameNames } from '@/components/forms/apply-server-errors';
+import { sameNames } from '@/components/forms/apply-server-errors';
+import { useApiSubmit } from '@/components/forms/use-api-submit';
 import { fetchJson } from '@/lib/client/fetch-json';
 import type { Account } from '@/lib/data/accounts';
 import { accountCreateSchema, type AccountCreateInput } from '@/lib/validations/account';
@@ -22,8 +22,6 @@ const fieldFor = sameNames<AccountCreateInput>(['name', 'email', 'siteRole', 'pa
 /** An admin opens an account directly and passes the initial password on by other means. */
 export function AccountCreateForm() {
   const { mutate } = useAccounts();
-  const [created, setCreated] = useState<string | null>(null);
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -35,24 +33,22 @@ export function AccountCreateForm() {
     defaultValues: { name: '', email: '', siteRole: 'member', password: '' },
   });
 
+  const { formError, notice, run } = useApiSubmit(setError, fieldFor);
+
   async function onSubmit(values: Output) {
-    setCreated(null);
-    setFormError(null);
-    try {
+    await run(async () => {
       const { account } = await fetchJson<{ account: Account }>('/api/admin/accounts', { method: 'POST', body: values });
       await mutate();
       reset();
-      setCreated(`Account created for ${account.email}.`);
-    } catch (error) {
-      setFormError(applyServerErrors(error, setError, fieldFor));
-    }
+      return `Account created for ${account.email}.`;
+    });
   }
 
   return (
     <Panel title="Create an account" description="People invited to a study get their account through the invitation instead.">
       <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-4">
         {formError && <Alert tone="error">{formError}</Alert>}
-        {created && <Alert tone="success">{created}</Alert>}
+        {notice && <Alert tone="success">{notice}</Alert>}
         <div className="grid gap-4 lg:grid-cols-2">
           <TextField label="Name" autoComplete="off" error={errors.name?.message} {...register('name')} />
           <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} {...register('email')} />

@@ -1,9 +1,8 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm, type UseFormRegisterReturn } from 'react-hook-form';
-import { applyServerErrors } from '@/components/forms/apply-server-errors';
+import { useApiSubmit } from '@/components/forms/use-api-submit';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextAreaField, TextField } from '@/components/ui/field';
@@ -52,7 +51,6 @@ interface CoilFormProps {
 
 /** Creates or edits a coil. Every size is typed with its unit and read back normalised under the field. */
 export function CoilForm({ studyId, coil, onSaved, onCancel }: CoilFormProps) {
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -63,18 +61,16 @@ export function CoilForm({ studyId, coil, onSaved, onCancel }: CoilFormProps) {
     resolver: zodResolver(coilFormSchema),
     defaultValues: coil ? coilToFormValues(coil) : EMPTY_COIL_FORM,
   });
+  const { formError, run } = useApiSubmit(setError, coilFormFieldFor);
   const values = watch();
   const kind = values.kind;
 
   async function onSubmit(body: CoilCreateInput) {
-    setFormError(null);
     const url = coil ? `/api/studies/${studyId}/coils/${coil.id}` : `/api/studies/${studyId}/coils`;
-    try {
+    await run(async () => {
       const result = await fetchJson<{ coil: Coil }>(url, { method: coil ? 'PATCH' : 'POST', body });
       onSaved(result.coil);
-    } catch (error) {
-      setFormError(applyServerErrors(error, setError, coilFormFieldFor));
-    }
+    });
   }
 
   const unit = (field: keyof CoilFormValues, label: string, quantity: QuantityKind, example: string) => (

@@ -1,7 +1,6 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { useSWRConfig } from 'swr';
 import { Alert } from '@/components/ui/alert';
@@ -11,7 +10,8 @@ import { Panel } from '@/components/ui/panel';
 import { optionsFrom, SelectField } from '@/components/ui/select';
 import { studyInvitationsKey } from '@/hooks/use-study-invitations';
 import { STUDY_ROLES } from '@/lib/auth/permissions';
-import { applyServerErrors, sameNames } from '@/components/forms/apply-server-errors';
+import { sameNames } from '@/components/forms/apply-server-errors';
+import { useApiSubmit } from '@/components/forms/use-api-submit';
 import { fetchJson } from '@/lib/client/fetch-json';
 import type { PendingInvitation } from '@/lib/data/invitations';
 import { invitationCreateSchema, type InvitationCreateInput } from '@/lib/validations/study';
@@ -23,8 +23,6 @@ const fieldFor = sameNames<InvitationCreateInput>(['email', 'role']);
 /** Invites an e-mail address with a role; the person gets a single-use link by e-mail. */
 export function InviteForm({ studyId }: { studyId: number }) {
   const { mutate } = useSWRConfig();
-  const [sentTo, setSentTo] = useState<string | null>(null);
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -35,25 +33,22 @@ export function InviteForm({ studyId }: { studyId: number }) {
     resolver: zodResolver(invitationCreateSchema),
     defaultValues: { email: '', role: 'student' },
   });
+  const { formError, notice, run } = useApiSubmit(setError, fieldFor);
 
   async function onSubmit(values: Output) {
-    setSentTo(null);
-    setFormError(null);
-    try {
+    await run(async () => {
       await fetchJson<{ invitation: PendingInvitation }>(`/api/studies/${studyId}/invitations`, { method: 'POST', body: values });
       await mutate(studyInvitationsKey(studyId));
       reset({ email: '', role: values.role });
-      setSentTo(values.email);
-    } catch (error) {
-      setFormError(applyServerErrors(error, setError, fieldFor));
-    }
+      return `Invitation sent to ${values.email}.`;
+    });
   }
 
   return (
     <Panel title="Invite someone" description="They get an e-mail with a link that works once and expires.">
       <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-4">
         {formError && <Alert tone="error">{formError}</Alert>}
-        {sentTo && <Alert tone="success">Invitation sent to {sentTo}.</Alert>}
+        {notice && <Alert tone="success">{notice}</Alert>}
         <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} {...register('email')} />
         <SelectField
           label="Role"

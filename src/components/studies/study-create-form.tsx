@@ -2,7 +2,6 @@
 
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { useSWRConfig } from 'swr';
 import { Alert } from '@/components/ui/alert';
@@ -10,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Panel } from '@/components/ui/panel';
 import { STUDIES_KEY } from '@/hooks/use-studies';
-import { applyServerErrors } from '@/components/forms/apply-server-errors';
+import { useApiSubmit } from '@/components/forms/use-api-submit';
 import { fetchJson } from '@/lib/client/fetch-json';
 import type { StudySummary } from '@/lib/data/studies';
 import type { StudyCreateInput } from '@/lib/validations/study';
@@ -20,7 +19,6 @@ import { formFieldFor, studyFormSchema, type StudyFormInput, type StudyFormOutpu
 export function StudyCreateForm({ onCancel }: { onCancel: () => void }) {
   const router = useRouter();
   const { mutate } = useSWRConfig();
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -31,16 +29,15 @@ export function StudyCreateForm({ onCancel }: { onCancel: () => void }) {
     defaultValues: { name: '', summary: '', frequency: '' },
   });
 
+  const { formError, run } = useApiSubmit(setError, formFieldFor);
+
   async function onSubmit({ name, summary, frequency }: StudyFormOutput) {
-    setFormError(null);
     const body: StudyCreateInput = { name, summary, frequencyHz: frequency };
-    try {
+    await run(async () => {
       const { study } = await fetchJson<{ study: StudySummary }>('/api/studies', { method: 'POST', body });
       await mutate(STUDIES_KEY);
       router.push(`/studies/${study.id}`);
-    } catch (error) {
-      setFormError(applyServerErrors(error, setError, formFieldFor));
-    }
+    });
   }
 
   return (
