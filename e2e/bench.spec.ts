@@ -3,7 +3,7 @@ import { DEMO, PAD_STUDY, signIn } from './support/accounts';
 import { projectBox } from './support/bench-view';
 
 /**
- * The 3D placement bench (issue 4) against the built app, in Debian's Chromium with software WebGL.
+ * The 3D placement bench against the built app, in Debian's Chromium with software WebGL.
  */
 
 /** The bench's fast pass; /api/solve at its default 1e-6 must agree with the bench to this (relative). */

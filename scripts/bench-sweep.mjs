@@ -1,5 +1,5 @@
 /**
- * The 441-placement sweep of issue 3 for scripts/bench.mjs: two 20-turn helices (radius 5 cm, length 4 cm,
+ * The 441-placement sweep for scripts/bench.mjs: two 20-turn helices (radius 5 cm, length 4 cm,
  * wire 1 mm) at 21 tilts (0-90 degrees by 4.5) x 21 distances (12-32 cm by 1 cm), tolerance 1e-6, solved
  * in this thread and through the solver's worker-thread pool (src/lib/solver-pool, the one the server
  * uses, with its workers started from the TypeScript sources). Each time is the median of SWEEPS runs on

@@ -1,6 +1,6 @@
 #!/usr/bin/env node
 /**
- * Solver benchmark (issue 3): median time of one solve of two 20-turn helices (radius 5 cm, length 4 cm,
+ * Solver benchmark: median time of one solve of two 20-turn helices (radius 5 cm, length 4 cm,
  * 12 cm apart) at tolerance 1e-6 and 1e-4, against a naive straight-segment midpoint Neumann sum with
  * 256 segments a turn on the same paths, with each one's error against a 1e-12 reference; then the
  * 441-placement sweep in this thread and through the solver's worker-thread pool (bench-sweep.mjs).

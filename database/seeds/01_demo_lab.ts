@@ -1,5 +1,9 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
+import { SOLVER_VERSION } from '../../src/physics';
+import { buildPlanPoints, type PlanLayout } from '../../src/lib/plans/points';
+import { pointPrediction, pointSolveJob, poseKey, type PlanSetupGeometry } from '../../src/lib/plans/solve-job';
+import { runSolveJob } from '../../src/lib/solver-pool/job';
 import { awgDiameter } from '../../src/lib/units/awg';
 
 /**
@@ -21,7 +25,7 @@ const SEED_BCRYPT_COST = 10;
 
 export async function seed(knex: Knex): Promise<void> {
   // Children first, so foreign keys never block the reset.
-  for (const table of ['audit_events', 'invitations', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
+  for (const table of ['audit_events', 'invitations', 'sweep_points', 'sweep_plans', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
     await knex(table).del();
   }
 
@@ -89,7 +93,41 @@ export async function seed(knex: Knex): Promise<void> {
     created_by: ids.researcher,
   });
 
+  // A plan the student can take to the bench: tilt 0-90 degrees by 15 x depth 5-20 cm by 5 on the setup
+  // above. Its predicted values are computed here with the solver, exactly as the server computes them.
+  const padSpec = { kind: 'spiral', innerRadius: 0.03, outerRadius: 0.14, turns: 8, wireDiameter: awgDiameter(16) } as const;
+  const probeSpec = { kind: 'helix', radius: 0.012, turns: 12, length: 0.03, wireDiameter: awgDiameter(22) } as const;
+  const geometry: PlanSetupGeometry = {
+    transmitter: padSpec, receiver: probeSpec, operatorPoint: [0.4, 0, 0.3],
+    circuit: { frequency: 6.78e6, topology: 'SS', sourceVoltage: 5, sourceResistance: 0.5, loadResistance: 50 },
+  };
+  const layout: PlanLayout = {
+    axes: [
+      { quantity: 'tiltDeg', displayUnit: 'deg', mode: 'range', start: 0, stop: 90, step: 15 },
+      { quantity: 'distance', displayUnit: 'cm', mode: 'range', start: 0.05, stop: 0.2, step: 0.05 },
+    ],
+    repeats: 1, referenceEvery: 10, orderMode: 'serpentine', shuffleSeed: null,
+  };
+  const planPoints = buildPlanPoints(layout, { distance: 0.1, lateralOffset: 0, tiltDeg: 0 });
+  const solved = new Map<string, string>();
+  for (const point of planPoints) {
+    const key = poseKey(point.pose);
+    if (!solved.has(key)) solved.set(key, JSON.stringify(pointPrediction(runSolveJob(pointSolveJob(geometry, point.pose)))));
+  }
+  const [tiltPlan] = await knex('sweep_plans').insert({
+    study_id: padStudy, setup_id: deepSetup, name: 'Probe tilt x depth', state: 'on_bench',
+    axes: JSON.stringify(layout.axes), repeats: layout.repeats, reference_every: layout.referenceEvery, order_mode: layout.orderMode,
+    shuffle_seed: null, minutes_per_point: 3, notes: 'Upright probe re-measured every 10 points to catch drift as the compost dries.',
+    prediction_status: 'done', prediction_progress: planPoints.length, prediction_total: planPoints.length, solver_version: SOLVER_VERSION,
+    created_by: ids.researcher,
+  });
+  await knex('sweep_points').insert(planPoints.map((p) => ({
+    plan_id: tiltPlan, seq: p.seq, repeat_index: p.repeatIndex, is_reference: p.isReference, pose: JSON.stringify(p.pose),
+    predicted: solved.get(poseKey(p.pose)), solver_version: SOLVER_VERSION,
+  })));
+
   await knex('audit_events').insert([
+    { study_id: padStudy, actor_id: ids.researcher, action: 'plan.create', target_table: 'sweep_plans', target_id: String(tiltPlan), details: JSON.stringify({ seeded: true }) },
     { study_id: padStudy, actor_id: ids.researcher, action: 'study.create', target_table: 'studies', target_id: String(padStudy), details: JSON.stringify({ seeded: true }) },
     { study_id: railStudy, actor_id: ids.otherResearcher, action: 'study.create', target_table: 'studies', target_id: String(railStudy), details: JSON.stringify({ seeded: true }) },
     { study_id: padStudy, actor_id: ids.researcher, action: 'setup.create', target_table: 'setups', target_id: String(deepSetup), details: JSON.stringify({ seeded: true }) },

@@ -22,7 +22,7 @@ export class SolveInputError extends Error {
 /** Accepted tolerance range (PRODUCT.md). */
 export const MIN_TOLERANCE = 1e-9;
 export const MAX_TOLERANCE = 1e-2;
-/** Largest winding accepted (issue 3: "more than 2,000 turns" is refused). */
+/** Largest winding accepted ("more than 2,000 turns" is refused). */
 export const MAX_TURNS = 2000;
 /** Largest strand count accepted (fine litz has a few thousand strands). */
 export const MAX_STRANDS = 100_000;

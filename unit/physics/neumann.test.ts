@@ -10,9 +10,9 @@ import type { Placement } from '../../src/physics/types';
 import { babicMutual } from './oracles/babic-2010';
 import { maxwellCoaxial, MU0 } from './oracles/maxwell';
 
-/** Relative tolerance of the coaxial checks (issue 3). */
+/** Relative tolerance of the coaxial checks. */
 const COAXIAL_REL_TOL = 1e-9;
-/** Relative tolerance of the tilted/offset checks (issue 3). */
+/** Relative tolerance of the tilted/offset checks. */
 const OFFSET_REL_TOL = 1e-7;
 /** REFERENCES.md COMP values are printed to ~13 digits. */
 const COMP_REL_TOL = 1e-9;

@@ -5,7 +5,7 @@
 import type { CircuitSpec, CoilSpec, SolveRequest } from '@/physics';
 import type { BenchPlacement } from './bench-types';
 
-/** Tolerances of the two passes (issue 4): fast while the receiver moves, refined once it rests. */
+/** Tolerances of the two passes: fast while the receiver moves, refined once it rests. */
 export const FAST_TOLERANCE = 1e-4;
 export const REFINED_TOLERANCE = 1e-6;
 

@@ -4,7 +4,7 @@
  */
 import type { Vec3 } from './bench-types';
 
-/** Grid points per side (issue 4: a coarse 41 x 41 map). */
+/** Grid points per side (a coarse 41 x 41 map). */
 export const FIELD_GRID_SIZE = 41;
 /** Margin around the coils' extent, as a fraction of the larger side. */
 const FIELD_MARGIN = 0.2;

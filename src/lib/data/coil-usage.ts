@@ -16,8 +16,8 @@ interface CoilUser {
 }
 
 /**
- * Everything that may refer to a coil. Sweep plans join this list when they arrive (their table will
- * refer to a setup or to coils); a coil is deletable only when every entry finds nothing.
+ * Everything that may refer to a coil: setups directly, sweep plans through their setup. A coil is
+ * deletable only when every entry finds nothing.
  */
 const COIL_USERS: CoilUser[] = [
   {
@@ -29,6 +29,17 @@ const COIL_USERS: CoilUser[] = [
         .orderBy('name')
         .forUpdate()
         .select('id', 'name'),
+  },
+  {
+    kind: 'sweep plan',
+    find: (trx, coilId) =>
+      trx('sweep_plans')
+        .join('setups', 'setups.id', 'sweep_plans.setup_id')
+        .where('setups.transmitter_coil_id', coilId)
+        .orWhere('setups.receiver_coil_id', coilId)
+        .orderBy('sweep_plans.name')
+        .forUpdate()
+        .select('sweep_plans.id', 'sweep_plans.name'),
   },
 ];
 
@@ -45,4 +56,10 @@ export async function findCoilUses(trx: Knex.Transaction, coilId: number): Promi
 export function describeCoilUses(uses: CoilUse[]): string {
   const names = uses.map((use) => `${use.kind} “${use.name}”`);
   return names.length <= 1 ? names.join('') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+}
+
+/** The sweep plans built on a setup, locked in the caller's transaction (a setup they use stays). */
+export async function findSetupUses(trx: Knex.Transaction, setupId: number): Promise<CoilUse[]> {
+  const rows: { id: number; name: string }[] = await trx('sweep_plans').where('setup_id', setupId).orderBy('name').forUpdate().select('id', 'name');
+  return rows.map((row) => ({ kind: 'sweep plan', id: row.id, name: row.name }));
 }

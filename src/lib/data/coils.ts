@@ -8,6 +8,7 @@ import { conflict, notFound, unprocessable } from '../http/errors';
 import { wireLabelMismatch, type CoilCreate, type CoilMeasured, type CoilUpdate } from '../validations/coil';
 import { recordAudit } from './audit';
 import { describeCoilUses, findCoilUses } from './coil-usage';
+import { beginRunsForSetups, launchPredictionRuns } from './plan-predictions';
 import { predictCoil, type CoilPrediction } from './coil-predictions';
 import { fromJsonColumn, toJsonColumn } from './json-column';
 
@@ -120,7 +121,7 @@ export async function createCoil(actor: SessionUser, studyId: number, input: Coi
 
 /** Changes a coil; `spec` and `measured` are replaced whole. A gauge label must keep matching the diameter. */
 export async function updateCoil(actor: SessionUser, studyId: number, coilId: number, input: CoilUpdate): Promise<Coil> {
-  await db.transaction(async (trx) => {
+  const begun = await db.transaction(async (trx) => {
     await requireStudyAccess(actor, studyId, 'study.edit', trx);
     const row = await trx('coils').where({ id: coilId, study_id: studyId }).forUpdate().first('id', 'name', 'spec', 'wire_label');
     if (!row) throw notFound('No such coil in this study.');
@@ -139,7 +140,12 @@ export async function updateCoil(actor: SessionUser, studyId: number, coilId: nu
     await trx('coils').where({ id: coilId }).update(changes);
     const fields = Object.keys(input).filter((key) => input[key as keyof CoilUpdate] !== undefined);
     await recordAudit(trx, { studyId, actorId: actor.id, action: 'coil.update', targetTable: 'coils', targetId: coilId, details: { name: input.name ?? row.name, fields } });
+    // the plans on setups of this coil predict from its old spec: compute them again
+    if (input.spec === undefined) return [];
+    const setupIds: number[] = await trx('setups').where('transmitter_coil_id', coilId).orWhere('receiver_coil_id', coilId).pluck('id');
+    return beginRunsForSetups(trx, setupIds);
   });
+  launchPredictionRuns(begun);
   return getCoil(actor, studyId, coilId);
 }
 

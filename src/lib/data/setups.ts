@@ -9,6 +9,8 @@ import type { SessionUser } from '../auth/session-user';
 import { conflict, notFound, unprocessable, type FieldIssue } from '../http/errors';
 import type { SetupCreate, SetupUpdate } from '../validations/setup';
 import { recordAudit } from './audit';
+import { describeCoilUses, findSetupUses } from './coil-usage';
+import { beginRunsForSetups, launchPredictionRuns } from './plan-predictions';
 import { fromJsonColumn, toJsonColumn } from './json-column';
 
 export type Vec3 = [number, number, number];
@@ -151,7 +153,7 @@ export async function createSetup(actor: SessionUser, studyId: number, input: Se
 
 /** Changes a setup; the result must still be solvable. */
 export async function updateSetup(actor: SessionUser, studyId: number, setupId: number, input: SetupUpdate): Promise<Setup> {
-  await db.transaction(async (trx) => {
+  const begun = await db.transaction(async (trx) => {
     await requireStudyAccess(actor, studyId, 'study.edit', trx);
     const row: SetupRow | undefined = await trx('setups').where({ id: setupId, study_id: studyId }).forUpdate().first();
     if (!row) throw notFound('No such setup in this study.');
@@ -178,7 +180,12 @@ export async function updateSetup(actor: SessionUser, studyId: number, setupId: 
     await trx('setups').where({ id: setupId }).update(changes);
     const fields = Object.keys(input).filter((key) => input[key as keyof SetupUpdate] !== undefined);
     await recordAudit(trx, { studyId, actorId: actor.id, action: 'setup.update', targetTable: 'setups', targetId: setupId, details: { name: input.name ?? current.name, fields } });
+    // Plans keep their poses (the placement is the plan's record), but coils, circuit and operator point
+    // feed their predictions: compute them again.
+    const predictionInputs = [input.transmitterCoilId, input.receiverCoilId, input.circuit, input.operatorPoint].some((v) => v !== undefined);
+    return predictionInputs ? beginRunsForSetups(trx, [setupId]) : [];
   });
+  launchPredictionRuns(begun);
   return getSetup(actor, studyId, setupId);
 }
 
@@ -188,6 +195,10 @@ export async function deleteSetup(actor: SessionUser, studyId: number, setupId: 
     await requireStudyAccess(actor, studyId, 'study.edit', trx);
     const row = await trx('setups').where({ id: setupId, study_id: studyId }).forUpdate().first('id', 'name');
     if (!row) throw notFound('No such setup in this study.');
+    const uses = await findSetupUses(trx, setupId);
+    if (uses.length > 0) {
+      throw conflict(`“${row.name}” is used by ${describeCoilUses(uses)}. Delete or change ${uses.length === 1 ? 'it' : 'them'} first.`);
+    }
     await trx('setups').where({ id: setupId }).del();
     await recordAudit(trx, { studyId, actorId: actor.id, action: 'setup.delete', targetTable: 'setups', targetId: setupId, details: { name: row.name } });
   });

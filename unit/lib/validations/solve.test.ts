@@ -73,7 +73,7 @@ describe('solveRequestSchema refuses, naming the field', () => {
     ['a tolerance below 1e-9 (PRODUCT.md range 1e-9..1e-2)', withValue('tolerance', 1e-12), ['tolerance']],
     ['a tolerance above 1e-2', withValue('tolerance', 0.1), ['tolerance']],
     ['a tolerance as text', withValue('tolerance', '1e-6'), ['tolerance']],
-    ['more than 2,000 turns (issue 3)', withValues({ 'transmitter.turns': 2001, 'transmitter.length': 3 }), ['transmitter.turns']],
+    ['more than 2,000 turns', withValues({ 'transmitter.turns': 2001, 'transmitter.length': 3 }), ['transmitter.turns']],
     ['wire thicker than the pitch: 20 turns in 1 cm of 1 mm wire', withValue('transmitter.length', 0.01), ['transmitter.length']],
     ['wire thicker than the loop', withValue('receiver.wireDiameter', 0.1), ['receiver.wireDiameter']],
     ['an unknown material', withValue('receiver.material', 'gold'), ['receiver.material']],
