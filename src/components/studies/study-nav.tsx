@@ -4,11 +4,12 @@ import Link from 'next/link';
 import { usePathname } from 'next/navigation';
 import { cn } from '@/components/ui/cn';
 
-/** The pages of one study, in the order work goes: what it is, its coils, the 3D bench. */
+/** The pages of one study, in the order work goes: what it is, its coils, the 3D bench, its sweep plans. */
 const SECTIONS = [
   { label: 'Overview', path: '' },
   { label: 'Coils', path: '/coils' },
   { label: 'Bench', path: '/bench' },
+  { label: 'Plans', path: '/plans' },
 ] as const;
 
 /** Tabs between a study's pages; the current one is marked for people and for screen readers. */

@@ -1,0 +1,42 @@
+import type { Metadata } from 'next';
+import { notFound } from 'next/navigation';
+import { PlanView } from '@/components/plans/plan-view';
+import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
+import { StudyNav } from '@/components/studies/study-nav';
+import { loadStudyPage } from '@/lib/auth/study-page';
+import { getPlan } from '@/lib/data/plans';
+import { listSetups } from '@/lib/data/setups';
+import { HttpError } from '@/lib/http/errors';
+
+type Params = Promise<{ studyId: string; planId: string }>;
+
+export async function generateMetadata({ params }: { params: Params }): Promise<Metadata> {
+  const { study } = await loadStudyPage((await params).studyId);
+  return { title: `Plan · ${study.name}` };
+}
+
+/**
+ * One sweep plan. The study and the plan are checked here, so a plan that is not on this study is the
+ * app's real 404; the page's data then loads through the plans API (SWR), which checks again.
+ */
+export default async function PlanPage({ params }: { params: Params }) {
+  const { studyId, planId } = await params;
+  const { study, user } = await loadStudyPage(studyId);
+  if (!/^[1-9][0-9]{0,9}$/.test(planId)) notFound();
+  try {
+    await getPlan(user, study.id, Number(planId));
+  } catch (error) {
+    if (error instanceof HttpError && error.status === 404) notFound();
+    throw error;
+  }
+  const setups = await listSetups(user, study.id);
+  return (
+    <div className="space-y-8">
+      <div className="space-y-3">
+        <StudyBreadcrumb studyId={study.id} studyName={study.name} page="Plans" />
+      </div>
+      <StudyNav studyId={study.id} />
+      <PlanView studyId={study.id} planId={Number(planId)} allowedActions={study.allowedActions} initialSetups={setups} />
+    </div>
+  );
+}
