@@ -115,3 +115,53 @@ test('a plan that is not on the study is the real not-found page', async ({ page
   const response = await page.goto(`${studyPath}/plans/987654`);
   expect(response?.status()).toBe(404);
 });
+
+test('a plan changed while it is being computed ends with the new points, every one predicted by the new run', async ({ page }) => {
+  await signIn(page, DEMO.researcher);
+  const studyId = await openPlans(page);
+  const api = page.request;
+  const { setups } = await (await api.get(`/api/studies/${studyId}/setups`)).json();
+  const setupId = setups.find((s: { name: string }) => s.name === DEMO_SETUP).id;
+  const tiltAxis = (step: number) => ({ quantity: 'tiltDeg', displayUnit: 'deg', mode: 'range', start: 0, stop: 90, step });
+  const distanceAxis = { quantity: 'distance', displayUnit: 'cm', mode: 'range', start: 0.05, stop: 0.25, step: 0.01 };
+
+  // A plan big enough to still be computing when it is changed: 91 tilts x 21 distances.
+  const created = await api.post(`/api/studies/${studyId}/plans`, {
+    data: { name: `Changed mid-run ${Date.now()}`, setupId, axes: [tiltAxis(1), distanceAxis], repeats: 1, minutesPerPoint: 1, notes: '' },
+  });
+  expect(created.status()).toBe(201);
+  const { plan } = await created.json();
+  const base = `/api/studies/${studyId}/plans/${plan.id}`;
+
+  const changed = await api.patch(base, { data: { axes: [tiltAxis(45), distanceAxis] } });
+  expect(changed.status()).toBe(200);
+  expect((await changed.json()).plan.pointCount).toBe(3 * 21);
+
+  await expect
+    .poll(async () => (await (await api.get(`${base}/progress`)).json()).status, { timeout: 60_000, intervals: [250] })
+    .toBe('done');
+  const { points } = await (await api.get(`${base}/points`)).json();
+  expect(points).toHaveLength(3 * 21);
+  expect(new Set(points.map((p: { pose: { tiltDeg: number } }) => p.pose.tiltDeg))).toEqual(new Set([0, 45, 90]));
+  expect(points.every((p: { predicted: unknown }) => p.predicted !== null)).toBe(true);
+
+  // Spot-check two points against /api/solve for the same setup (independent path through the API).
+  const { setup } = await (await api.get(`/api/studies/${studyId}/setups/${setupId}`)).json();
+  const { coils } = await (await api.get(`/api/studies/${studyId}/coils`)).json();
+  const specOf = (id: number) => coils.find((c: { id: number }) => c.id === id).spec;
+  for (const point of [points[0], points[points.length - 1]]) {
+    const solved = await api.post('/api/solve', {
+      data: {
+        transmitter: specOf(setup.transmitterCoilId),
+        receiver: specOf(setup.receiverCoilId),
+        placement: { distance: point.pose.distance, lateralOffset: point.pose.lateralOffset, tiltDeg: point.pose.tiltDeg },
+        circuit: setup.circuit,
+        tolerance: 1e-6,
+      },
+    });
+    const { coupling } = await solved.json();
+    // Both sides solve to a requested tolerance of 1e-6; 1e-5 leaves room for the two estimates.
+    expect(Math.abs(point.predicted.coupling - coupling)).toBeLessThanOrEqual(1e-5 * Math.abs(coupling) + 1e-12);
+  }
+  await api.delete(base).catch(() => undefined);
+});
