@@ -6,7 +6,6 @@
  * server's default size, workers started from the sources. The end-to-end time with the database writes
  * is measured by unit/lib/data/plans.test.ts. Usage: node scripts/bench-plan.mjs [--runs N]
  */
-import { readFileSync } from 'node:fs';
 import os from 'node:os';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
@@ -14,13 +13,7 @@ import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const require = createRequire(import.meta.url);
-const swc = require('@swc/core');
-require.extensions['.ts'] = (module, filename) => {
-  const { code } = swc.transformSync(readFileSync(filename, 'utf8'), {
-    filename, jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' },
-  });
-  module._compile(code, filename);
-};
+require('./lib/register-ts.cjs');
 const plans = require(join(root, 'src/lib/plans/index.ts'));
 const { SolverPool } = require(join(root, 'src/lib/solver-pool/solver-pool.ts'));
 const { createSourceWorker } = require(join(root, 'src/lib/solver-pool/source-worker.ts'));

@@ -7,7 +7,6 @@
  * Runs the TypeScript sources directly: .ts files are compiled on require by @swc/core (a dev dependency).
  * Usage: node scripts/bench.mjs [--runs N]
  */
-import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -15,13 +14,7 @@ import { sweepRows } from './bench-sweep.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const require = createRequire(import.meta.url);
-const swc = require('@swc/core');
-require.extensions['.ts'] = (module, filename) => {
-  const { code } = swc.transformSync(readFileSync(filename, 'utf8'), {
-    filename, jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' },
-  });
-  module._compile(code, filename);
-};
+require('./lib/register-ts.cjs');
 const physics = require(join(root, 'src/physics/index.ts'));
 const { mutualInductance } = require(join(root, 'src/physics/neumann.ts'));
 const { samplePath } = require(join(root, 'src/physics/geometry/coil-path.ts'));
