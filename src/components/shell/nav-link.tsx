@@ -4,6 +4,7 @@ import Link from 'next/link';
 import { usePathname } from 'next/navigation';
 import type { ReactNode } from 'react';
 import { cn } from '@/components/ui/cn';
+import { isCurrentPath } from './is-current-path';
 
 /**
  * A top-navigation link that marks itself current. `sections` lists the path prefixes that belong to
@@ -11,7 +12,7 @@ import { cn } from '@/components/ui/cn';
  */
 export function NavLink({ href, sections = [href], children }: { href: string; sections?: string[]; children: ReactNode }) {
   const pathname = usePathname();
-  const current = sections.some((prefix) => pathname === prefix || pathname.startsWith(`${prefix}/`));
+  const current = sections.some((prefix) => isCurrentPath(pathname, prefix));
   return (
     <Link
       href={href}

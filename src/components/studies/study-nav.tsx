@@ -3,6 +3,7 @@
 import Link from 'next/link';
 import { usePathname } from 'next/navigation';
 import { cn } from '@/components/ui/cn';
+import { isCurrentPath } from '@/components/shell/is-current-path';
 
 /** The pages of one study, in the order work goes: what it is, its coils, the 3D bench, its sweep plans. */
 const SECTIONS = [
@@ -21,7 +22,7 @@ export function StudyNav({ studyId }: { studyId: number }) {
       <ul className="-mb-px flex gap-6">
         {SECTIONS.map(({ label, path }) => {
           const href = `${base}${path}`;
-          const current = path === '' ? pathname === base : pathname === href || pathname.startsWith(`${href}/`);
+          const current = path === '' ? pathname === base : isCurrentPath(pathname, href);
           return (
             <li key={label}>
               <Link

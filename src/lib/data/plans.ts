@@ -186,18 +186,11 @@ export async function createPlan(actor: SessionUser, studyId: number, input: Pla
   return getPlan(actor, studyId, planId);
 }
 
-interface DesignRow {
-  name: string;
-  setup_id: number;
-  state: PlanState;
-  axes: unknown;
-  repeats: number;
-  reference_every: number | null;
-  order_mode: OrderMode;
-  shuffle_seed: number | null;
-  minutes_per_point: number;
-  notes: string | null;
-}
+/** The columns that make up a plan's design, as lockPlan reads them. */
+type DesignRow = Pick<
+  PlanRow,
+  'name' | 'setup_id' | 'state' | 'axes' | 'repeats' | 'reference_every' | 'order_mode' | 'shuffle_seed' | 'minutes_per_point' | 'notes'
+>;
 
 async function lockPlan(trx: Knex.Transaction, studyId: number, planId: number): Promise<DesignRow> {
   const row: DesignRow | undefined = await trx('sweep_plans').where({ id: planId, study_id: studyId }).forUpdate().first();
