@@ -1,8 +1,7 @@
 import type { Metadata } from 'next';
 import { MembersSection } from '@/components/members/members-section';
 import { RoleBadge } from '@/components/studies/role-badge';
-import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
-import { StudyNav } from '@/components/studies/study-nav';
+import { StudyPageFrame } from '@/components/studies/study-page-frame';
 import { PageHeader } from '@/components/ui/page-header';
 import { loadStudyPage as loadStudy } from '@/lib/auth/study-page';
 import { listPendingInvitations } from '@/lib/data/invitations';
@@ -25,26 +24,28 @@ export default async function StudyPage({ params }: { params: Params }) {
   ]);
 
   return (
-    <div className="space-y-8">
-      <div className="space-y-3">
-        <StudyBreadcrumb studyId={study.id} studyName={study.name} />
-        <PageHeader title={study.name} description={study.summary || undefined} />
-        <dl className="flex flex-wrap gap-x-8 gap-y-2 text-sm">
-          <div className="flex items-center gap-2">
-            <dt className="text-ink-500">Operating frequency</dt>
-            <dd className="font-medium tabular-nums text-ink-900">{study.frequencyHz === null ? 'not set' : formatFrequency(study.frequencyHz)}</dd>
-          </div>
-          <div className="flex items-center gap-2">
-            <dt className="text-ink-500">Started by</dt>
-            <dd className="font-medium text-ink-900">{study.createdBy.name}</dd>
-          </div>
-        </dl>
-        <p className="flex items-center gap-2 text-sm text-ink-700">
-          Your role: <RoleBadge role={study.myRole} />
-        </p>
-      </div>
-      <StudyNav studyId={study.id} />
+    <StudyPageFrame
+      study={study}
+      header={
+        <>
+          <PageHeader title={study.name} description={study.summary || undefined} />
+          <dl className="flex flex-wrap gap-x-8 gap-y-2 text-sm">
+            <div className="flex items-center gap-2">
+              <dt className="text-ink-500">Operating frequency</dt>
+              <dd className="font-medium tabular-nums text-ink-900">{study.frequencyHz === null ? 'not set' : formatFrequency(study.frequencyHz)}</dd>
+            </div>
+            <div className="flex items-center gap-2">
+              <dt className="text-ink-500">Started by</dt>
+              <dd className="font-medium text-ink-900">{study.createdBy.name}</dd>
+            </div>
+          </dl>
+          <p className="flex items-center gap-2 text-sm text-ink-700">
+            Your role: <RoleBadge role={study.myRole} />
+          </p>
+        </>
+      }
+    >
       <MembersSection studyId={study.id} viewerId={user.id} canManage={canManage} members={members} invitations={invitations} />
-    </div>
+    </StudyPageFrame>
   );
 }

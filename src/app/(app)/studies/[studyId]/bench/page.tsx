@@ -1,8 +1,7 @@
 import type { Metadata } from 'next';
 import { Suspense } from 'react';
 import { BenchWorkspace } from '@/components/bench/bench-workspace';
-import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
-import { StudyNav } from '@/components/studies/study-nav';
+import { StudyPageFrame } from '@/components/studies/study-page-frame';
 import { PageHeader } from '@/components/ui/page-header';
 import { Skeleton } from '@/components/ui/skeleton';
 import { loadStudyPage } from '@/lib/auth/study-page';
@@ -27,9 +26,11 @@ export default async function BenchPage({ params }: { params: Params }) {
   const [coils, setups] = await Promise.all([listCoils(user, study.id), listSetups(user, study.id)]);
 
   return (
-    <div className="space-y-6">
-      <div className="space-y-3">
-        <StudyBreadcrumb studyId={study.id} studyName={study.name} page="Bench" />
+    <StudyPageFrame
+      study={study}
+      page="Bench"
+      className="space-y-6"
+      header={
         <PageHeader
           title="Placement bench"
           description={
@@ -39,12 +40,12 @@ export default async function BenchPage({ params }: { params: Params }) {
             </>
           }
         />
-      </div>
-      <StudyNav studyId={study.id} />
+      }
+    >
       {/* useSearchParams (?setup=) needs a boundary of its own */}
       <Suspense fallback={<Skeleton label="Loading the bench" rows={4} />}>
         <BenchWorkspace studyId={study.id} studyFrequencyHz={study.frequencyHz} canEdit={canEdit} initialCoils={coils} initialSetups={setups} />
       </Suspense>
-    </div>
+    </StudyPageFrame>
   );
 }

@@ -1,7 +1,6 @@
 import type { Metadata } from 'next';
 import { CoilLibrary } from '@/components/coils/coil-library';
-import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
-import { StudyNav } from '@/components/studies/study-nav';
+import { StudyPageFrame } from '@/components/studies/study-page-frame';
 import { PageHeader } from '@/components/ui/page-header';
 import { loadStudyPage } from '@/lib/auth/study-page';
 import { listCoils } from '@/lib/data/coils';
@@ -19,13 +18,14 @@ export default async function StudyCoilsPage({ params }: { params: Params }) {
   const coils = await listCoils(user, study.id);
 
   return (
-    <div className="space-y-8">
-      <div className="space-y-3">
-        <StudyBreadcrumb studyId={study.id} studyName={study.name} page="Coils" />
+    <StudyPageFrame
+      study={study}
+      page="Coils"
+      header={
         <PageHeader title="Coils" description="The transmitter and receiver coils of this study, with their predicted and measured values." />
-      </div>
-      <StudyNav studyId={study.id} />
+      }
+    >
       <CoilLibrary studyId={study.id} frequencyHz={study.frequencyHz} canEdit={study.allowedActions.includes('study.edit')} initialCoils={coils} />
-    </div>
+    </StudyPageFrame>
   );
 }

@@ -1,8 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { PlanList } from '@/components/plans/plan-list';
-import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
-import { StudyNav } from '@/components/studies/study-nav';
+import { StudyPageFrame } from '@/components/studies/study-page-frame';
 import { buttonClasses } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/page-header';
 import { loadStudyPage } from '@/lib/auth/study-page';
@@ -19,9 +18,10 @@ export default async function PlansPage({ params }: { params: Params }) {
   const { study } = await loadStudyPage((await params).studyId);
   const canEdit = study.allowedActions.includes('study.edit');
   return (
-    <div className="space-y-8">
-      <div className="space-y-3">
-        <StudyBreadcrumb studyId={study.id} studyName={study.name} page="Plans" />
+    <StudyPageFrame
+      study={study}
+      page="Plans"
+      header={
         <PageHeader
           title="Sweep plans"
           description="The positions the bench measures, with every point's predicted values."
@@ -33,9 +33,9 @@ export default async function PlansPage({ params }: { params: Params }) {
             )
           }
         />
-      </div>
-      <StudyNav studyId={study.id} />
+      }
+    >
       <PlanList studyId={study.id} />
-    </div>
+    </StudyPageFrame>
   );
 }

@@ -1,8 +1,7 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { PlanView } from '@/components/plans/plan-view';
-import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
-import { StudyNav } from '@/components/studies/study-nav';
+import { StudyPageFrame } from '@/components/studies/study-page-frame';
 import { loadStudyPage } from '@/lib/auth/study-page';
 import { getPlan } from '@/lib/data/plans';
 import { listSetups } from '@/lib/data/setups';
@@ -31,12 +30,11 @@ export default async function PlanPage({ params }: { params: Params }) {
   }
   const setups = await listSetups(user, study.id);
   return (
-    <div className="space-y-8">
-      <div className="space-y-3">
-        <StudyBreadcrumb studyId={study.id} studyName={study.name} page="Plans" />
-      </div>
-      <StudyNav studyId={study.id} />
+    <StudyPageFrame
+      study={study}
+      page="Plans"
+    >
       <PlanView studyId={study.id} planId={Number(planId)} allowedActions={study.allowedActions} initialSetups={setups} />
-    </div>
+    </StudyPageFrame>
   );
 }

@@ -1,8 +1,7 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { PlanDesigner } from '@/components/plans/plan-designer';
-import { StudyBreadcrumb } from '@/components/studies/study-breadcrumb';
-import { StudyNav } from '@/components/studies/study-nav';
+import { StudyPageFrame } from '@/components/studies/study-page-frame';
 import { PageHeader } from '@/components/ui/page-header';
 import { loadStudyPage } from '@/lib/auth/study-page';
 import { listSetups } from '@/lib/data/setups';
@@ -20,13 +19,14 @@ export default async function NewPlanPage({ params }: { params: Params }) {
   if (!study.allowedActions.includes('study.edit')) notFound();
   const setups = await listSetups(user, study.id);
   return (
-    <div className="space-y-8">
-      <div className="space-y-3">
-        <StudyBreadcrumb studyId={study.id} studyName={study.name} page="New plan" />
+    <StudyPageFrame
+      study={study}
+      page="New plan"
+      header={
         <PageHeader title="New sweep plan" description="Choose a saved setup, then the axes the receiver moves along." />
-      </div>
-      <StudyNav studyId={study.id} />
+      }
+    >
       <PlanDesigner studyId={study.id} initialSetups={setups} />
-    </div>
+    </StudyPageFrame>
   );
 }
