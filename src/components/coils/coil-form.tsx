@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, type UseFormRegisterReturn } from 'react-hook-form';
 import { useApiSubmit } from '@/components/forms/use-api-submit';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Panel } from '@/components/ui/panel';
 import { optionsFrom, SelectField } from '@/components/ui/select';
@@ -115,14 +115,7 @@ export function CoilForm({ studyId, coil, onSaved, onCancel }: CoilFormProps) {
         </fieldset>
 
         <TextAreaField label="Notes" hint="Former, winding, where it is kept. Optional." error={errors.notes?.message} {...register('notes')} />
-        <div className="flex gap-3">
-          <Button type="submit" variant="primary" disabled={isSubmitting}>
-            {isSubmitting ? 'Saving…' : coil ? 'Save changes' : 'Add coil'}
-          </Button>
-          <Button onClick={onCancel} disabled={isSubmitting}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions submitLabel={isSubmitting ? 'Saving…' : coil ? 'Save changes' : 'Add coil'} busy={isSubmitting} onCancel={onCancel} />
       </form>
     </Panel>
   );

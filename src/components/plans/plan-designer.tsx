@@ -8,6 +8,7 @@ import { useSWRConfig } from 'swr';
 import { useApiSubmit } from '@/components/forms/use-api-submit';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select';
@@ -140,16 +141,12 @@ export function PlanDesigner({ studyId, initialSetups, plan, onSaved, onCancel }
           </Alert>
         )}
 
-        <div className="flex gap-3">
-          <Button type="submit" variant="primary" disabled={isSubmitting || tooMany}>
-            {isSubmitting ? 'Saving…' : plan ? 'Save changes' : 'Save plan'}
-          </Button>
-          {onCancel && (
-            <Button onClick={onCancel} disabled={isSubmitting}>
-              Cancel
-            </Button>
-          )}
-        </div>
+        <FormActions
+          submitLabel={isSubmitting ? 'Saving…' : plan ? 'Save changes' : 'Save plan'}
+          busy={isSubmitting}
+          submitDisabled={tooMany}
+          onCancel={onCancel}
+        />
       </form>
     </Panel>
   );

@@ -5,7 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useForm } from 'react-hook-form';
 import { useSWRConfig } from 'swr';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
+import { FormActions } from '@/components/ui/form-actions';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Panel } from '@/components/ui/panel';
 import { STUDIES_KEY } from '@/hooks/use-studies';
@@ -55,14 +55,7 @@ export function StudyCreateForm({ onCancel }: { onCancel: () => void }) {
           />
         </div>
         <TextAreaField label="Summary" hint="What the study sets out to measure. Optional." error={errors.summary?.message} {...register('summary')} />
-        <div className="flex gap-3">
-          <Button type="submit" variant="primary" disabled={isSubmitting}>
-            Create study
-          </Button>
-          <Button onClick={onCancel} disabled={isSubmitting}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions submitLabel="Create study" busy={isSubmitting} onCancel={onCancel} />
       </form>
     </Panel>
   );
