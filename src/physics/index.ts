@@ -17,3 +17,6 @@ export { DEFAULT_TOLERANCE } from './neumann';
 export { coilProperties } from './coil-properties';
 export type { CoilProperties } from './coil-properties';
 export type * from './types';
+export * from './measurement';
+export { MAX_TOUCHSTONE_CHARS, MAX_TOUCHSTONE_POINTS, TouchstoneError, parseTouchstone, twoPortRawFromTouchstone, zParametersAt } from './touchstone';
+export type { TouchstoneData, TouchstoneFormat, TouchstoneFrequencyUnit, TouchstoneParameter, TouchstonePoint, ZParameters } from './touchstone';

@@ -38,6 +38,9 @@ const SYMBOL: Record<QuantityKind, string> = {
   resistance: '\u03a9',
   capacitance: 'F',
   voltage: 'V',
+  current: 'A',
+  power: 'W',
+  angle: '\u00b0',
 };
 
 /** Frequencies are never written in millihertz in this field: 0.5 Hz stays "0.5 Hz". */
@@ -48,6 +51,10 @@ const STEPS: Record<QuantityKind, readonly Step[]> = {
   resistance: ENGINEERING,
   capacitance: ENGINEERING,
   voltage: ENGINEERING,
+  current: ENGINEERING,
+  power: ENGINEERING,
+  // phase angles are read in plain degrees ("-89.5°"), never "m°"
+  angle: [{ factor: 1, prefix: '' }],
 };
 
 /** Significant digits by default: enough for 13.56 MHz or a typed 1.0237 mm, without float noise. */

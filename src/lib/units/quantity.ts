@@ -11,6 +11,9 @@ export const QUANTITIES = {
   resistance: { si: 'ohm', noun: 'a resistance', examples: '0.5 ohm or 500 mohm' },
   capacitance: { si: 'F', noun: 'a capacitance', examples: '47 nF or 220 pF' },
   voltage: { si: 'V', noun: 'a voltage', examples: '12 V or 500 mV' },
+  current: { si: 'A', noun: 'a current', examples: '1.2 A or 350 mA' },
+  power: { si: 'W', noun: 'a power', examples: '5 W or 250 mW' },
+  angle: { si: 'deg', noun: 'an angle', examples: '90 deg or 1.2 rad' },
 } as const;
 
 export type QuantityKind = keyof typeof QUANTITIES;
@@ -25,10 +28,10 @@ export const roundSignificant = (value: number) => Number(value.toPrecision(SIGN
 
 /**
  * Spellings people type that mathjs does not know: the micro sign and Greek mu for "u", the ohm sign
- * and Greek omega for "ohm". Unit symbols stay case-sensitive, as in SI ("mHz" is millihertz).
+ * and Greek omega for "ohm", a trailing degree sign for "deg". Unit symbols stay case-sensitive, as in SI ("mHz" is millihertz).
  */
 export function normaliseUnitText(text: string): string {
-  return text.trim().replace(/[\u00b5\u03bc]/g, 'u').replace(/[\u2126\u03a9]/g, 'ohm');
+  return text.trim().replace(/[\u00b5\u03bc]/g, 'u').replace(/[\u2126\u03a9]/g, 'ohm').replace(/\s*\u00b0$/, ' deg');
 }
 
 export type QuantityParse = { ok: true; value: number | null } | { ok: false; message: string };
