@@ -5,6 +5,8 @@ import { buildPlanPoints, type PlanLayout } from '../../src/lib/plans/points';
 import { pointPrediction, pointSolveJob, poseKey, type PlanSetupGeometry } from '../../src/lib/plans/solve-job';
 import { runSolveJob } from '../../src/lib/solver-pool/job';
 import { awgDiameter } from '../../src/lib/units/awg';
+import { BENCH_CAUTIONS_VERSION } from '../../src/lib/readings/bench-cautions';
+import { deriveReading } from '../../src/physics/measurement/derive';
 
 /**
  * Demo data: an invented lab, the "Fernbrook Soil Robotics group", charging buried soil-moisture
@@ -24,8 +26,10 @@ export const DEMO_ACCOUNTS = {
 const SEED_BCRYPT_COST = 10;
 
 export async function seed(knex: Knex): Promise<void> {
-  // Children first, so foreign keys never block the reset.
-  for (const table of ['audit_events', 'invitations', 'sweep_points', 'sweep_plans', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
+  // Children first, so foreign keys never block the reset. A correction references the version it
+  // supersedes, so readings go newest version first.
+  await knex.raw('DELETE FROM readings ORDER BY version DESC');
+  for (const table of ['attachments', 'caution_acknowledgements', 'reading_column_maps', 'audit_events', 'invitations', 'sweep_points', 'sweep_plans', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
     await knex(table).del();
   }
 
@@ -126,10 +130,52 @@ export async function seed(knex: Knex): Promise<void> {
     predicted: solved.get(poseKey(p.pose)), solver_version: SOLVER_VERSION,
   })));
 
+  await seedBenchReadings(knex, { planId: tiltPlan, studentId: ids.student, frequency: geometry.circuit.frequency });
+
   await knex('audit_events').insert([
     { study_id: padStudy, actor_id: ids.researcher, action: 'plan.create', target_table: 'sweep_plans', target_id: String(tiltPlan), details: JSON.stringify({ seeded: true }) },
     { study_id: padStudy, actor_id: ids.researcher, action: 'study.create', target_table: 'studies', target_id: String(padStudy), details: JSON.stringify({ seeded: true }) },
     { study_id: railStudy, actor_id: ids.otherResearcher, action: 'study.create', target_table: 'studies', target_id: String(railStudy), details: JSON.stringify({ seeded: true }) },
     { study_id: padStudy, actor_id: ids.researcher, action: 'setup.create', target_table: 'setups', target_id: String(deepSetup), details: JSON.stringify({ seeded: true }) },
   ]);
+}
+
+/**
+ * The student's first morning at the bench: cautions acknowledged, then the first eight points by
+ * open-circuit voltage, with a fixture that leans a little more the further the probe tilts (so the
+ * demo review shows an error growing with tilt), and the efficiency by direct power at four of them.
+ * Raw values are made up from the predictions; the derived values are computed as the server does.
+ */
+async function seedBenchReadings(knex: Knex, { planId, studentId, frequency }: { planId: number; studentId: number; frequency: number }): Promise<void> {
+  await knex('caution_acknowledgements').insert({ plan_id: planId, user_id: studentId, cautions_version: BENCH_CAUTIONS_VERSION });
+  const points: { id: number; seq: number; pose: unknown; predicted: unknown }[] = await knex('sweep_points')
+    .where({ plan_id: planId }).where('seq', '<=', 8).orderBy('seq').select('id', 'seq', 'pose', 'predicted');
+  const accuracy = { relative: 0.005, phaseDeg: 1 };
+  const rows = [];
+  for (const point of points) {
+    const pose = typeof point.pose === 'string' ? JSON.parse(point.pose) : point.pose;
+    const predicted = typeof point.predicted === 'string' ? JSON.parse(point.predicted) : point.predicted;
+    const context = { predicted: { coupling: predicted.coupling, txSelfInductance: predicted.txSelfInductance, rxSelfInductance: predicted.rxSelfInductance } };
+    // a repeatable scatter of about 2 % plus a bias that grows with tilt
+    const deviation = 0.02 * Math.sin(point.seq * 2.1) - 0.004 * (pose.tiltDeg / 15);
+    const txCurrent = 0.25;
+    const rxVoltage = 2 * Math.PI * frequency * Math.abs(predicted.mutualInductance) * txCurrent * (1 + deviation);
+    const openCircuit = { frequency, txCurrent, rxVoltage: Number(rxVoltage.toPrecision(4)), phaseDeg: predicted.mutualInductance >= 0 ? 89.2 : -89.2 };
+    rows.push(benchRow(planId, point.id, studentId, 'open_circuit', openCircuit, accuracy, deriveReading('open_circuit', openCircuit, accuracy, context), 'Scope probe 10:1 on the probe coil; current probe on the pad lead.'));
+    if (point.seq % 2 === 0) {
+      const inputPower = 1.2;
+      const outputPower = Number((inputPower * predicted.efficiency * (1 + deviation - 0.03)).toPrecision(4));
+      const power = { inputPower, outputPower };
+      rows.push(benchRow(planId, point.id, studentId, 'direct_power', power, accuracy, deriveReading('direct_power', power, accuracy, context), 'Two RF power meters; 50 ohm dummy load on the probe.'));
+    }
+  }
+  await knex('readings').insert(rows);
+}
+
+function benchRow(planId: number, pointId: number, studentId: number, method: string, raw: object, accuracy: object, derived: object, notes: string) {
+  return {
+    plan_id: planId, point_id: pointId, version: 1, method, raw: JSON.stringify(raw), accuracy: JSON.stringify(accuracy),
+    derived: JSON.stringify(derived), instrument: 'Bench kit B (scope, current probe, RF power meters)', calibration: 'in_date',
+    temperature_c: 21.5, setup_notes: notes, source: 'form', created_by: studentId,
+  };
 }

@@ -3,7 +3,10 @@ import type { Knex } from 'knex';
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
-import { conflict, notFound, unprocessable } from '../http/errors';
+import { conflict, HttpError, notFound, unprocessable } from '../http/errors';
+import { serverEnv } from '../env';
+import { planSubmittedMail } from '../mail/templates';
+import { sendMail } from '../mail/transport';
 import type { PlanAxis } from '../plans/axes';
 import type { OrderMode } from '../plans/order';
 import { buildPlanPoints, estimatedMinutes, type BasePose } from '../plans/points';
@@ -259,8 +262,39 @@ export async function transitionPlan(actor: SessionUser, studyId: number, planId
       studyId, actorId: actor.id, action: 'plan.transition', targetTable: 'sweep_plans', targetId: planId,
       details: { name: row.name, from: row.state, to: input.to, ...(input.reason ? { reason: input.reason } : {}) },
     });
+    if (input.to === 'in_review') await notifyReviewers(trx, actor, studyId, planId, row.name);
   });
   return getPlan(actor, studyId, planId);
+}
+
+/**
+ * A plan goes to review with at least one reading, and the study's supervisors hear of it. The mail
+ * is sent inside the transaction: when it cannot be sent the plan stays on the bench (503), so no
+ * supervisor misses a submission.
+ */
+async function notifyReviewers(trx: Knex.Transaction, actor: SessionUser, studyId: number, planId: number, planName: string): Promise<void> {
+  const logged = await trx('readings').where({ plan_id: planId }).countDistinct({ n: 'point_id' }).first();
+  const pointsLogged = Number(logged?.n ?? 0);
+  if (pointsLogged === 0) throw conflict('Log at least one reading before sending the plan for review.');
+  const supervisors: { email: string }[] = await trx('study_members')
+    .join('users', 'users.id', 'study_members.user_id')
+    .where({ 'study_members.study_id': studyId, 'study_members.role': 'supervisor' })
+    .whereNull('users.disabled_at')
+    .select('users.email');
+  const study = await trx('studies').where({ id: studyId }).first('name');
+  const link = `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}`;
+  const pointCount = Number((await trx('sweep_points').where({ plan_id: planId }).count({ n: '*' }).first())?.n ?? 0);
+  try {
+    for (const supervisor of supervisors) {
+      await sendMail({
+        to: supervisor.email,
+        ...planSubmittedMail({ studyName: study.name, planName, submitterName: actor.name, link, pointsLogged, pointCount }),
+      });
+    }
+  } catch (error) {
+    console.error('Review notification failed', error);
+    throw new HttpError(503, 'The supervisors could not be notified, so the plan stays on the bench. Try again in a moment.');
+  }
 }
 
 /** Computes the plan's predictions again on the same points (e.g. after the setup's coils changed). */

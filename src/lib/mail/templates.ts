@@ -37,3 +37,31 @@ export function invitationMail(input: InvitationMailInput): { subject: string; t
 <p>If you did not expect this invitation, ignore this e-mail.</p>`;
   return { subject, text, html };
 }
+
+export interface PlanSubmittedMailInput {
+  studyName: string;
+  planName: string;
+  submitterName: string;
+  /** the plan's page */
+  link: string;
+  /** points with at least one current reading, and all points */
+  pointsLogged: number;
+  pointCount: number;
+}
+
+/** To the study's supervisors when a plan comes off the bench for review. */
+export function planSubmittedMail(input: PlanSubmittedMailInput): { subject: string; text: string; html: string } {
+  const subject = `"${input.planName}" is ready for review (${input.studyName})`;
+  const coverage = `${input.pointsLogged} of ${input.pointCount} points have readings.`;
+  const text = [
+    `${input.submitterName} sent the plan "${input.planName}" of the study "${input.studyName}" for review.`,
+    coverage,
+    '',
+    'Open the plan to compare predicted and measured values:',
+    input.link,
+  ].join('\n');
+  const html = `<p>${escapeHtml(input.submitterName)} sent the plan <strong>${escapeHtml(input.planName)}</strong> of the study <strong>${escapeHtml(input.studyName)}</strong> for review.</p>
+<p>${escapeHtml(coverage)}</p>
+<p><a href="${escapeHtml(input.link)}">Open the plan</a> to compare predicted and measured values.</p>`;
+  return { subject, text, html };
+}

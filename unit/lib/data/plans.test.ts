@@ -3,6 +3,9 @@ import { createCoil, deleteCoil } from '../../../src/lib/data/coils';
 import { createSetup, deleteSetup, updateSetup } from '../../../src/lib/data/setups';
 import { cancelPredictions, createPlan, deletePlan, getPlan, getPlanProgress, listPlans, recomputePredictions, transitionPlan, updatePlan } from '../../../src/lib/data/plans';
 import { listPlanPoints, runSheetCsv } from '../../../src/lib/data/plan-points';
+import { acknowledgeCautions, createReading } from '../../../src/lib/data/readings';
+import { BENCH_CAUTIONS_VERSION } from '../../../src/lib/readings/bench-cautions';
+import { readingCreateSchema } from '../../../src/lib/validations/reading';
 import { planPredictionRun, setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
 import { pointPrediction, pointSolveJob } from '../../../src/lib/plans/solve-job';
 import { runSolveJob } from '../../../src/lib/solver-pool/job';
@@ -101,6 +104,11 @@ describe('sweep plans data', () => {
     expect(await statusOf(() => updatePlan(researcher, padId, plan.id, { axes: [tilt] }))).toBe(409);
     expect(await statusOf(() => deletePlan(researcher, padId, plan.id))).toBe(409);
     expect(await statusOf(() => transitionPlan(supervisor, padId, plan.id, { to: 'in_review' }))).toBe(403);
+    // review needs something to review: at least one reading
+    expect(await statusOf(() => transitionPlan(student, padId, plan.id, { to: 'in_review' }))).toBe(409);
+    await acknowledgeCautions(student, padId, plan.id, BENCH_CAUTIONS_VERSION);
+    const [firstPoint] = await listPlanPoints(student, padId, plan.id);
+    await createReading(student, padId, plan.id, readingCreateSchema.parse({ pointId: firstPoint.id, method: 'split_peaks', raw: { lowPeak: 6.6e6, highPeak: 6.9e6 } }));
     expect((await transitionPlan(student, padId, plan.id, { to: 'in_review' })).state).toBe('in_review');
     expect(await statusOf(() => transitionPlan(researcher, padId, plan.id, { to: 'accepted' }))).toBe(403);
     expect((await transitionPlan(supervisor, padId, plan.id, { to: 'on_bench', reason: 'Redo 30 degrees' })).state).toBe('on_bench');
