@@ -1,13 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { DEMO, RAIL_STUDY } from './support/accounts';
-
-async function apiSignIn(request: import('@playwright/test').APIRequestContext, account: { email: string; password: string }) {
-  const csrf = await (await request.get('/api/auth/csrf')).json();
-  const response = await request.post('/api/auth/callback/credentials', {
-    form: { csrfToken: csrf.csrfToken, email: account.email, password: account.password, json: 'true' },
-  });
-  expect(response.ok()).toBe(true);
-}
+import { DEMO, RAIL_STUDY, apiSignIn } from './support/accounts';
 
 test.describe('API access rules', () => {
   test('without a session every study API answers 401', async ({ request }) => {

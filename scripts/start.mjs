@@ -8,6 +8,7 @@
 // What runs (instance "dev", data in .data/dev/):
 //   MariaDB  127.0.0.1:3407, database couplet   (skipped when DATABASE_URL is set)
 //   mail     SMTP 127.0.0.1:1025, inbox http://127.0.0.1:1080   (skipped when SMTP_HOST is set)
+//   S3       http://127.0.0.1:4569, bucket couplet   (skipped when S3_ENDPOINT is set)
 //   app      http://127.0.0.1:3000
 //
 // Only Node's built-in modules are imported up front: this must run before `npm ci`.
@@ -21,6 +22,7 @@ import { ensureSystemPackages } from './lib/system-packages.mjs';
 import { databaseUrl, ensureDatabase, startMariaDb } from './lib/mariadb.mjs';
 import { migrate, seedIfFresh } from './lib/database.mjs';
 import { startMail } from './lib/mail.mjs';
+import { startS3 } from './lib/s3.mjs';
 import { buildIfNeeded, startNext } from './lib/next-app.mjs';
 
 const args = process.argv.slice(2);
@@ -79,6 +81,7 @@ async function main() {
 
   const ownDb = !process.env.DATABASE_URL;
   const standIn = !process.env.SMTP_HOST;
+  const s3StandIn = !process.env.S3_ENDPOINT;
   if (ownDb) await ensureSystemPackages(['mariadb-server'], { root: inst.root, logsDir: inst.logsDir });
 
   const nextauthSecret = process.env.NEXTAUTH_SECRET || readOrCreateSecret(path.join(inst.dir, 'nextauth-secret'), 32);
@@ -92,7 +95,7 @@ async function main() {
   } else {
     info('DATABASE_URL is set: using that database, not starting MariaDB');
   }
-  const env = childEnv(inst, { databaseUrl: dbUrl, mailStandIn: standIn, nextauthSecret });
+  const env = childEnv(inst, { databaseUrl: dbUrl, mailStandIn: standIn, s3StandIn, nextauthSecret });
 
   await migrate(inst, env);
   await seedIfFresh(inst, env, ownDb);
@@ -101,11 +104,16 @@ async function main() {
   if (standIn) mail = await startMail(inst, env);
   else info(`SMTP_HOST is set: mail goes to ${process.env.SMTP_HOST}, no stand-in started`);
 
+  let s3 = null;
+  if (s3StandIn) s3 = await startS3(inst, env);
+  else info(`S3_ENDPOINT is set: files go to ${process.env.S3_ENDPOINT}, no stand-in started`);
+
   if (!dev) await buildIfNeeded(inst, env);
   const app = await startNext(inst, env, { dev });
 
   if (db) watch(db, 'MariaDB', path.join(inst.logsDir, 'mariadb-error.log'));
   if (mail) watch(mail, 'The mail stand-in', path.join(inst.logsDir, 'mail.log'));
+  if (s3) watch(s3, 'The S3 stand-in', path.join(inst.logsDir, 's3.log'));
   watch(app.child, 'The app', app.logFile);
 
   const line = (k, v) => console.log(`  ${k.padEnd(15)} ${v}`);
@@ -114,6 +122,7 @@ async function main() {
   line('App:', bold(inst.appUrl));
   line('Demo accounts:', 'see README.md (section "Demo accounts")');
   line('Mail inbox:', standIn ? `${inst.inboxUrl}  (SMTP 127.0.0.1:${inst.smtpPort})` : `not running (SMTP_HOST=${process.env.SMTP_HOST})`);
+  line('File storage:', s3StandIn ? `${inst.s3Url}  (S3 stand-in, bucket ${env.S3_BUCKET}, objects in ${rel(inst.root, inst.s3Dir)}/)` : `S3_ENDPOINT=${process.env.S3_ENDPOINT}`);
   line('Database:', ownDb ? `mysql://couplet@127.0.0.1:${inst.dbPort}/${inst.dbName} (password in ${rel(inst.root, inst.dir)}/db-password)` : 'DATABASE_URL from your environment');
   line('Logs:', `${rel(inst.root, inst.logsDir)}/`);
   console.log(dim('Press Ctrl-C to stop everything. App log follows:'));

@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // `npm test`: everything the test suites need, on the isolated "test" instance (.data/test/,
-// MariaDB 127.0.0.1:3408 with couplet_test recreated each run, SMTP 1026 / inbox 1081, app 3100),
+// MariaDB 127.0.0.1:3408 with couplet_test recreated each run, SMTP 1026 / inbox 1081, S3 stand-in
+// 4570 emptied each run, app 3100),
 // then jest (unit/) and playwright (e2e/), then a summary. Stops everything it started, also on
 // failure and Ctrl-C. `npm start` may run at the same time: nothing is shared.
 //
@@ -21,6 +22,7 @@ import { CHROMIUM, ensureSystemPackages } from './lib/system-packages.mjs';
 import { databaseUrl, ensureDatabase, startMariaDb } from './lib/mariadb.mjs';
 import { migrate, seed } from './lib/database.mjs';
 import { clearMailDir, startMail } from './lib/mail.mjs';
+import { clearS3Objects, resetS3Dir, startS3 } from './lib/s3.mjs';
 import { buildIfNeeded, startNext } from './lib/next-app.mjs';
 import { formatCounts, jestCounts, playwrightCounts } from './lib/test-results.mjs';
 
@@ -130,23 +132,28 @@ async function main() {
   // database is dropped each run, and e2e tests read the invitations from the stand-in's inbox.
   if (process.env.DATABASE_URL) info('DATABASE_URL is ignored by npm test: tests use their own MariaDB on 127.0.0.1:3408');
   if (process.env.SMTP_HOST) info('SMTP_HOST is ignored by npm test: tests use the mail stand-in on 127.0.0.1:1026');
+  // Tests upload throw-away files and drop the rows that name them: never into a real bucket.
+  if (process.env.S3_ENDPOINT) info(`S3_ENDPOINT is ignored by npm test: tests use the S3 stand-in on ${inst.s3Url}`);
   const password = readOrCreateSecret(path.join(inst.dir, 'db-password'), 18);
   const nextauthSecret = readOrCreateSecret(path.join(inst.dir, 'nextauth-secret'), 32);
   await startMariaDb(inst);
-  const env = childEnv(inst, { databaseUrl: databaseUrl(inst, password), mailStandIn: true, nextauthSecret });
+  const env = childEnv(inst, { databaseUrl: databaseUrl(inst, password), mailStandIn: true, s3StandIn: true, nextauthSecret });
   await freshDatabase(env, password);
 
   clearMailDir(inst);
   await startMail(inst, env);
+  resetS3Dir(inst);
+  await startS3(inst, env);
 
   if (runUnit) exitCodes.unit = await runJest(env);
 
   if (runE2e) {
     if (runUnit) {
       // Unit tests may have written to the database and sent mail: e2e starts from seed data again.
-      step('resetting the test database and inbox for the end-to-end tests…');
+      step('resetting the test database, inbox and file storage for the end-to-end tests…');
       await freshDatabase(env, password);
       clearMailDir(inst);
+      clearS3Objects(inst);
     }
     await buildIfNeeded(inst, env);
     await startNext(inst, env);

@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, type APIRequestContext, type Page } from '@playwright/test';
 
 /** The demo lab's accounts (database/seeds/01_demo_lab.ts; listed in the README). */
 export const DEMO = {
@@ -19,4 +19,13 @@ export async function signIn(page: Page, account: { email: string; password: str
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/dashboard$/);
   await expect(page.getByRole('heading', { name: 'My studies' })).toBeVisible();
+}
+
+/** Signs an API request context in through next-auth's credentials endpoint (for API-level checks). */
+export async function apiSignIn(request: APIRequestContext, account: { email: string; password: string }): Promise<void> {
+  const csrf = await (await request.get('/api/auth/csrf')).json();
+  const response = await request.post('/api/auth/callback/credentials', {
+    form: { csrfToken: csrf.csrfToken, email: account.email, password: account.password, json: 'true' },
+  });
+  expect(response.ok()).toBe(true);
 }

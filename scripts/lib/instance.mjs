@@ -21,9 +21,12 @@ export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 // Ports differ per instance so `npm start` and `npm test` can run side by side; none is 3306 so a
 // system MariaDB/MySQL never collides with ours.
 const SETTINGS = {
-  dev: { dbPort: 3407, dbName: 'couplet', smtpPort: 1025, inboxPort: 1080, appPort: 3000, distDir: '.next' },
-  test: { dbPort: 3408, dbName: 'couplet_test', smtpPort: 1026, inboxPort: 1081, appPort: 3100, distDir: '.next-test' },
+  dev: { dbPort: 3407, dbName: 'couplet', smtpPort: 1025, inboxPort: 1080, s3Port: 4569, appPort: 3000, distDir: '.next' },
+  test: { dbPort: 3408, dbName: 'couplet_test', smtpPort: 1026, inboxPort: 1081, s3Port: 4570, appPort: 3100, distDir: '.next-test' },
 };
+
+/** The stand-in's bucket and s3rver's fixed credentials (it accepts no others). */
+export const S3_STAND_IN = { bucket: 'couplet', region: 'us-east-1', accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' };
 
 export const MARKER = 'COUPLET_INSTANCE_DIR';
 
@@ -49,6 +52,7 @@ export function getInstance(name) {
     dbPort: base.dbPort + offset,
     smtpPort: base.smtpPort + offset,
     inboxPort: base.inboxPort + offset,
+    s3Port: base.s3Port + offset,
     appPort: base.appPort + offset,
   };
   const dir = path.join(ROOT, '.data', name);
@@ -68,11 +72,13 @@ export function getInstance(name) {
     logsDir: path.join(dir, 'logs'),
     runDir: path.join(dir, 'run'),
     mailDir: path.join(dir, 'mail'),
+    s3Dir: path.join(dir, 's3'),
     mariadbDir,
     socket,
     mariadbPidFile: path.join(mariadbDir, 'mysqld.pid'),
     appUrl: `http://127.0.0.1:${s.appPort}`,
     inboxUrl: `http://127.0.0.1:${s.inboxPort}`,
+    s3Url: `http://127.0.0.1:${s.s3Port}`,
   };
 }
 
@@ -159,10 +165,11 @@ export function markerEnv(inst) {
 }
 
 /**
- * The environment for every child (knex, Next, jest, playwright, the mail stand-in).
- * `db` is the DATABASE_URL; `mail` is null when the user's SMTP_* settings are used as they are.
+ * The environment for every child (knex, Next, jest, playwright, the stand-ins).
+ * `databaseUrl` is the DATABASE_URL; with `mailStandIn` / `s3StandIn` false the user's SMTP_* /
+ * S3_* settings are passed on as they are.
  */
-export function childEnv(inst, { databaseUrl, mailStandIn, nextauthSecret }) {
+export function childEnv(inst, { databaseUrl, mailStandIn, s3StandIn, nextauthSecret }) {
   const env = { ...process.env };
   // Each child gets the NODE_ENV it needs (Next: production, jest sets "test" itself); a
   // NODE_ENV left in the developer's shell must not leak into the wrong tool.
@@ -185,6 +192,18 @@ export function childEnv(inst, { databaseUrl, mailStandIn, nextauthSecret }) {
       SMTP_SECURE: 'false',
       MAIL_INBOX_URL: inst.inboxUrl,
     });
+  }
+  if (s3StandIn) {
+    Object.assign(env, {
+      S3_ENDPOINT: inst.s3Url,
+      S3_REGION: S3_STAND_IN.region,
+      S3_BUCKET: S3_STAND_IN.bucket,
+      S3_ACCESS_KEY_ID: S3_STAND_IN.accessKeyId,
+      S3_SECRET_ACCESS_KEY: S3_STAND_IN.secretAccessKey,
+      S3_FORCE_PATH_STYLE: 'true',
+    });
+    // Browsers reach the stand-in at its own address; a public URL of another store must not leak in.
+    delete env.S3_PUBLIC_URL;
   }
   return env;
 }

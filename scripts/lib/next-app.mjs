@@ -43,7 +43,10 @@ function tsconfigForHash(root) {
   }
 }
 
-function buildHash(inst) {
+/** Variables next.config.js reads at build time: the file store's origin goes into the CSP. */
+const CONFIG_ENV = ['S3_PUBLIC_URL', 'S3_ENDPOINT', 'S3_BUCKET', 'S3_FORCE_PATH_STYLE'];
+
+function buildHash(inst, env) {
   // .env files and NEXT_PUBLIC_* variables are baked into the bundle at build time.
   const envFiles = fs.readdirSync(inst.root).filter((f) => /^\.env/.test(f));
   const publicEnv = Object.keys(process.env)
@@ -51,7 +54,8 @@ function buildHash(inst) {
     .sort()
     .map((k) => `${k}=${process.env[k]}`)
     .join('\n');
-  return hashTree(inst.root, [...BUILD_INPUTS, ...envFiles.sort()], `${inst.distDir}\n${publicEnv}\n${tsconfigForHash(inst.root)}\n`);
+  const configEnv = CONFIG_ENV.map((k) => `${k}=${env[k] ?? ''}`).join('\n');
+  return hashTree(inst.root, [...BUILD_INPUTS, ...envFiles.sort()], `${inst.distDir}\n${publicEnv}\n${configEnv}\n${tsconfigForHash(inst.root)}\n`);
 }
 
 function requireAppFiles(inst, stepName) {
@@ -66,7 +70,7 @@ function requireAppFiles(inst, stepName) {
 /** `next build` into the instance's distDir, unless the stored hash says the build is current. */
 export async function buildIfNeeded(inst, env) {
   requireAppFiles(inst, 'next build');
-  const before = buildHash(inst);
+  const before = buildHash(inst, env);
   if (readStamp(stampFile(inst)) === before && fs.existsSync(path.join(distDir(inst), 'BUILD_ID'))) {
     ok(`Next build in ${inst.distDir}/ is up to date`);
     return;

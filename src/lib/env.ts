@@ -22,6 +22,20 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default('Couplet <no-reply@couplet.test>'),
   /** Hours an invitation link stays valid. */
   INVITATION_TTL_HOURS: z.coerce.number().positive().max(24 * 30).default(72),
+  // Object storage for attachments: any S3-compatible service; the defaults are the dev stand-in
+  // (scripts/s3-server.mjs, s3rver's fixed credentials).
+  S3_ENDPOINT: z.string().url().default('http://127.0.0.1:4569'),
+  /** The store's address as browsers reach it, when it differs from S3_ENDPOINT; signed URLs use it. */
+  S3_PUBLIC_URL: z.preprocess((value) => (value === '' ? undefined : value), z.string().url().optional()),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_BUCKET: z.string().min(3).max(63).default('couplet'),
+  S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
+  /** true: http://host/bucket/key (the stand-in, MinIO); false: http://bucket.host/key (AWS default). */
+  S3_FORCE_PATH_STYLE: z
+    .enum(['true', 'false'])
+    .default('true')
+    .transform((value) => value === 'true'),
 });
 
 export type ServerEnv = z.infer<typeof envSchema>;

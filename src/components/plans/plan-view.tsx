@@ -86,10 +86,16 @@ export function PlanView({ studyId, planId, allowedActions, initialSetups }: Pla
           title="Plan"
           description={plan.state === 'draft' ? 'A draft: its axes can still change.' : 'Frozen: only a draft changes its axes.'}
           actions={
-            editable && (
+            editable ? (
               <Button size="sm" onClick={() => setEditing(true)}>
                 Edit plan
               </Button>
+            ) : (
+              plan.state !== 'draft' && (
+                <Link href={`/studies/${studyId}/plans/${plan.id}/logbook`} className={buttonClasses('primary', 'sm')}>
+                  Open the logbook
+                </Link>
+              )
             )
           }
         >

@@ -309,13 +309,14 @@ export async function createReading(
   studyId: number,
   planId: number,
   input: ReadingCreate,
-  extras: { source?: ReadingSource; attachmentId?: number | null } = {},
+  extras: { source?: ReadingSource; attachmentId?: number | null; notes?: string[] } = {},
 ): Promise<Reading> {
   const id = await db.transaction(async (trx) => {
     const context = await openBench(trx, actor, studyId, planId);
     const point = pointOf(context, input.pointId);
     refuseSecondReading(point, input.method);
-    const derived = deriveAtPoint(point, input);
+    const derivation = deriveAtPoint(point, input);
+    const derived = extras.notes?.length ? { ...derivation, warnings: [...derivation.warnings, ...extras.notes] } : derivation;
     const [readingId] = await trx('readings').insert(
       readingRow(context, point, input, derived, actor.id, { version: 1, source: extras.source ?? 'form', attachmentId: extras.attachmentId ?? null }),
     );

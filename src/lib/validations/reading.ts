@@ -115,5 +115,22 @@ export const correctionReasonSchema = z
 export const readingCorrectionSchema = z.object({ ...readingBody, reason: correctionReasonSchema }).superRefine(refineRaw).transform(compactRaw);
 export type ReadingCorrection = z.output<typeof readingCorrectionSchema>;
 
+/**
+ * A two-port reading taken from a Touchstone file attached to the plan: the server reads the
+ * Z-parameters at `frequency` (empty: the point's frequency) instead of typed ones.
+ */
+export const readingFromFileSchema = z.object({
+  pointId: pointIdSchema,
+  attachmentId: z.number({ error: 'Choose an uploaded Touchstone file.' }).int('Choose an uploaded Touchstone file.').positive('Choose an uploaded Touchstone file.'),
+  frequency: z.number({ error: 'Enter the frequency in hertz.' }).finite('Enter the frequency in hertz.').positive('The frequency must be above zero.').max(1e11, 'At most 100 GHz.').nullable().default(null),
+  accuracy: readingBody.accuracy,
+  achievedPose: readingBody.achievedPose,
+  instrument: readingBody.instrument,
+  calibration: readingBody.calibration,
+  temperatureC: readingBody.temperatureC,
+  setupNotes: readingBody.setupNotes,
+});
+export type ReadingFromFile = z.output<typeof readingFromFileSchema>;
+
 /** Fields of a reading that are not raw inputs, for forms and the CSV mapping. */
 export type ReadingCircumstances = Pick<ReadingCreate, 'accuracy' | 'achievedPose' | 'instrument' | 'calibration' | 'temperatureC' | 'setupNotes'>;

@@ -2,11 +2,13 @@ import { createPlan, transitionPlan } from '../../../src/lib/data/plans';
 import { listPlanPoints, type PlanPoint } from '../../../src/lib/data/plan-points';
 import { planPredictionRun, setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
 import { acknowledgeCautions, correctReading, createReading, getCautionAcknowledgement, listReadings } from '../../../src/lib/data/readings';
+import { createAttachment } from '../../../src/lib/data/attachments';
+import { createReadingFromTouchstone } from '../../../src/lib/data/readings-from-touchstone';
 import { BENCH_CAUTIONS_VERSION } from '../../../src/lib/readings/bench-cautions';
 import { createSourceWorker } from '../../../src/lib/solver-pool/source-worker';
 import { SolverPool } from '../../../src/lib/solver-pool/solver-pool';
 import { planCreateSchema } from '../../../src/lib/validations/plan';
-import { readingCorrectionSchema, readingCreateSchema } from '../../../src/lib/validations/reading';
+import { readingCorrectionSchema, readingCreateSchema, readingFromFileSchema } from '../../../src/lib/validations/reading';
 import { db, SEEDED, sessionUserByEmail, statusOf, studyIdByName } from '../../support/database';
 
 /**
@@ -28,7 +30,7 @@ describe('readings data', () => {
     setPlanSolverPool(pool);
     const researcher = await sessionUserByEmail(SEEDED.researcher);
     padId = await studyIdByName(SEEDED.padStudy);
-    const setup = await db('setups').where({ study_id: padId }).first('id');
+    const setup = await db('setups').where({ study_id: padId, name: 'Probe 10 cm deep, upright' }).first('id');
     const plan = await createPlan(researcher, padId, planCreateSchema.parse({
       name: 'Readings drill', setupId: setup.id, minutesPerPoint: 2,
       axes: [{ quantity: 'distance', displayUnit: 'cm', mode: 'list', values: [0.06, 0.1, 0.14] }],
@@ -116,6 +118,26 @@ describe('readings data', () => {
     await expect(createReading(student, padId, planId, shortAboveOpen)).rejects.toMatchObject({ status: 422, issues: [{ path: 'raw.shortInductance' }] });
     const foreignPoint = openCircuit(999999999, 1);
     await expect(createReading(student, padId, planId, foreignPoint)).rejects.toMatchObject({ status: 422, issues: [{ path: 'pointId' }] });
+  });
+
+  it('reads a two-port reading from an attached Touchstone file and names the file', async () => {
+    const student = await sessionUserByEmail(SEEDED.student);
+    // Touchstone 1.0: Z parameters are normalised to R, so R 1 stores ohms as they are; 2-port data
+    // lines are ordered N11 N21 N12 N22 (Touchstone File Format Specification 1.1).
+    const file = ['! coupled coils, invented values', '# MHz Z RI R 1', '6.70 0.5 421 0.01 21.0 0.01 21.0 0.5 421', '6.78 0.5 426 0.01 21.3 0.01 21.3 0.5 426'].join('\n');
+    const attachment = await createAttachment(student, padId, planId, { kind: 'instrument', pointId: points[1].id, fileName: 'vna-point2.s2p', caption: null, bytes: Buffer.from(file) });
+    const reading = await createReadingFromTouchstone(student, padId, planId, readingFromFileSchema.parse({ pointId: points[1].id, attachmentId: attachment.id }));
+    // Keysight Impedance Measurement Handbook: M = Im(Z21) / omega, k = Im Z21 / sqrt(Im Z11 Im Z22)
+    expect(reading).toMatchObject({ method: 'two_port', source: 'touchstone', attachmentId: attachment.id, raw: { frequency: F, z21Im: 21.3 } });
+    expect(reading.derived.mutualInductance!.value).toBeCloseTo(21.3 / omega, 15);
+    expect(reading.derived.coupling!.value).toBeCloseTo(21.3 / 426, 12);
+    // a frequency the file does not have: the nearest point is used, and the reading says so
+    const nearest = await createReadingFromTouchstone(student, padId, planId, readingFromFileSchema.parse({ pointId: points[2].id, attachmentId: attachment.id, frequency: 6.6e6 }));
+    expect(nearest.raw.frequency).toBe(6.7e6);
+    expect(nearest.derived.warnings.join(' ')).toMatch(/no data at 6600000 Hz; the nearest point, 6700000 Hz/);
+    const notTouchstone = await createAttachment(student, padId, planId, { kind: 'instrument', pointId: null, fileName: 'notes.s2p', caption: null, bytes: Buffer.from('# MHz Q XX R 50\n1 2 3') });
+    await expect(createReadingFromTouchstone(student, padId, planId, readingFromFileSchema.parse({ pointId: points[1].id, attachmentId: notTouchstone.id })))
+      .rejects.toMatchObject({ status: 422, issues: [{ path: 'attachmentId' }] });
   });
 
   it('lets students and researchers log; supervisors, admins and outsiders cannot', async () => {

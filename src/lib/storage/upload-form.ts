@@ -1,0 +1,71 @@
+import 'server-only';
+import { HttpError, unprocessable, type FieldIssue } from '../http/errors';
+import { MAX_ATTACHMENT_BYTES } from './content-type';
+import { zodIssues } from '../http/respond';
+import { attachmentFieldsSchema, type AttachmentFields } from '../validations/attachment';
+
+/** Room for the multipart boundaries, headers and the other fields around the largest file [bytes]. */
+const FORM_OVERHEAD_BYTES = 64 * 1024;
+/** Largest upload body read at all; each kind's own limit is checked once the kind is known [bytes]. */
+export const MAX_UPLOAD_BODY_BYTES = Math.max(...Object.values(MAX_ATTACHMENT_BYTES)) + FORM_OVERHEAD_BYTES;
+
+function tooLarge(maxBytes: number): HttpError {
+  const message = `The file is larger than ${Math.floor(maxBytes / (1024 * 1024))} MB.`;
+  return new HttpError(413, message, [{ path: 'file', message }]);
+}
+
+/**
+ * The body of a multipart/form-data request, refused with 413 (naming `file`) as soon as it passes
+ * `maxBytes`: first by its Content-Length, then by counting the stream, so nothing larger is held.
+ */
+export async function readMultipartForm(request: Request, maxBytes = MAX_UPLOAD_BODY_BYTES): Promise<FormData> {
+  const contentType = request.headers.get('content-type') ?? '';
+  if (!/^multipart\/form-data\s*;/i.test(contentType)) {
+    throw new HttpError(415, 'Send the file as multipart/form-data.', [{ path: '(body)', message: 'Expected multipart/form-data.' }]);
+  }
+  const declared = Number(request.headers.get('content-length'));
+  if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge(maxBytes);
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  if (request.body) {
+    const reader = request.body.getReader();
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      size += value.byteLength;
+      if (size > maxBytes) {
+        await reader.cancel();
+        throw tooLarge(maxBytes);
+      }
+      chunks.push(value);
+    }
+  }
+  try {
+    return await new Response(Buffer.concat(chunks), { headers: { 'Content-Type': contentType } }).formData();
+  } catch {
+    throw unprocessable('The upload could not be read; send it again.', [{ path: '(body)', message: 'Malformed multipart/form-data.' }]);
+  }
+}
+
+export interface AttachmentForm {
+  fields: AttachmentFields;
+  file: { name: string; bytes: Buffer };
+}
+
+/**
+ * The attachment form's fields, parsed with the shared schema, and its file; one 422 listing every
+ * field that needs attention, `file` included when no file was sent.
+ */
+export async function parseAttachmentForm(form: FormData): Promise<AttachmentForm> {
+  const text = (name: string) => {
+    const value = form.get(name);
+    return typeof value === 'string' ? value : undefined;
+  };
+  const parsed = attachmentFieldsSchema.safeParse({ kind: text('kind'), pointId: text('pointId'), caption: text('caption') });
+  const issues: FieldIssue[] = parsed.success ? [] : zodIssues(parsed.error);
+  const file = form.get('file');
+  const noFile = file === null || typeof file === 'string' || (file.size === 0 && !file.name);
+  if (noFile) issues.push({ path: 'file', message: 'Choose a file to upload.' });
+  if (!parsed.success || noFile) throw unprocessable('Some fields need attention.', issues);
+  return { fields: parsed.data, file: { name: file.name, bytes: Buffer.from(await file.arrayBuffer()) } };
+}
