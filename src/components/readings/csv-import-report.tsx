@@ -70,7 +70,8 @@ export function CsvImportReport({ report }: { report: ReadingImportReport }) {
     <div className="space-y-4">
       <p role="status" className="text-sm text-ink-700">
         {count(report.total)} rows: {count(ready)} ready, {count(report.withProblems)} with problems
-        {report.fileProblems.length > 0 && `, and ${count(report.fileProblems.length)} problems with the file or its mapping`}.
+        {report.fileProblems.length > 0 &&
+          `, and ${count(report.fileProblems.length)} ${report.fileProblems.length === 1 ? 'problem' : 'problems'} with the file or its mapping`}.
       </p>
       {problems.length > 0 && <ProblemTable problems={problems} unlisted={report.unlistedProblemRows} />}
       {sample.length > 0 && (

@@ -23,7 +23,7 @@ import { formatQuantityValue } from './format-measured';
 import { PointReadings } from './point-readings';
 import { poseLabel } from './pose-label';
 import { INITIAL_CIRCUMSTANCES, ReadingForm, type BenchCircumstances } from './reading-form';
-import type { MeasurementMethod, Reading } from './reading-types';
+import { MEASUREMENT_METHODS, type MeasurementMethod, type Reading } from './reading-types';
 
 /** Short tags for the point list, so a glance shows which methods a point already has. */
 const METHOD_TAG: Record<MeasurementMethod, string> = {
@@ -138,6 +138,8 @@ export function Logbook({ studyId, planId, viewerId, allowedActions }: LogbookPr
       const list = map.get(r.pointId) ?? [];
       if (!list.includes(r.method)) map.set(r.pointId, [...list, r.method]);
     }
+    // tags in the methods' own order, whatever order they were logged in
+    for (const [id, list] of map) map.set(id, MEASUREMENT_METHODS.filter((m) => list.includes(m)));
     return map;
   }, [readings]);
 
@@ -147,7 +149,11 @@ export function Logbook({ studyId, planId, viewerId, allowedActions }: LogbookPr
   const onBench = plan.state === 'on_bench';
   const acknowledged = Boolean(acknowledgement?.acknowledgedAt);
   const mayLogNow = canLog && onBench && acknowledged;
-  const selected = points.find((p) => p.id === selectedId) ?? points.find((p) => !loggedByPoint.has(p.id)) ?? points[0];
+  // by default: the next point to measure for those who log, the first measured one for those who read
+  const selected =
+    points.find((p) => p.id === selectedId) ??
+    points.find((p) => (mayLogNow ? !loggedByPoint.has(p.id) : loggedByPoint.has(p.id))) ??
+    points[0];
   const pointReadings = (readings ?? []).filter((r) => r.pointId === selected?.id);
   const canCorrect = (first: Reading) => mayLogNow && first.createdBy.id === viewerId;
   const refresh = () => {

@@ -21,7 +21,7 @@ function RawValues({ reading }: { reading: Reading }) {
         .map((field) => (
           <div key={field.key} className="contents">
             <dt>{field.label}</dt>
-            <dd className="font-mono tabular-nums">{formatRaw(reading.raw[field.key], field.kind)}</dd>
+            <dd className="whitespace-nowrap font-mono tabular-nums">{formatRaw(reading.raw[field.key], field.kind)}</dd>
           </div>
         ))}
     </dl>
@@ -84,7 +84,7 @@ export function PointReadings({ readings, predicted, canCorrect, onCorrect }: Po
               {current.createdBy.name}, {formatDateTime(current.createdAt)}
               {current.correctionReason && <> · corrected because: “{current.correctionReason}”</>}
             </p>
-            <div className="grid gap-4 lg:grid-cols-[minmax(0,14rem)_1fr]">
+            <div className="grid gap-4 lg:grid-cols-[minmax(0,17rem)_1fr]">
               <RawValues reading={current} />
               <DerivedValues derived={current.derived} predicted={predicted} />
             </div>
@@ -101,7 +101,7 @@ export function PointReadings({ readings, predicted, canCorrect, onCorrect }: Po
                         Version {old.version} by {old.createdBy.name}, {formatDateTime(old.createdAt)}
                         {old.correctionReason && <> · corrected because: “{old.correctionReason}”</>}
                       </p>
-                      <div className="mt-1 grid gap-3 lg:grid-cols-[minmax(0,14rem)_1fr]">
+                      <div className="mt-1 grid gap-3 lg:grid-cols-[minmax(0,17rem)_1fr]">
                         <RawValues reading={old} />
                         <DerivedValues derived={old.derived} predicted={predicted} />
                       </div>
