@@ -58,8 +58,20 @@ describe('other quantities', () => {
     ['47 nF', 'capacitance', 4.7e-8],
     ['220 pF', 'capacitance', 2.2e-10],
     ['12 V', 'voltage', 12],
+    ['350 mA', 'current', 0.35],
+    ['250 mW', 'power', 0.25],
+    ['89.5 deg', 'angle', 89.5],
+    ['-89.5°', 'angle', -89.5],
+    ['45', 'angle', 45],
+    // 1 rad = 180/pi degrees (SI Brochure, 9th edition, table 4)
+    ['1 rad', 'angle', Number((180 / Math.PI).toPrecision(12))],
   ] as const)('"%s" (%s) is %f in SI', (text, kind, value) => {
     expect(read(text, kind)).toBe(value);
+  });
+
+  test('a current is not a power, nor a power a voltage', () => {
+    expect(messageOf('3 W', 'current', 'I1')).toMatch(/^I1: "3 W" is not a current/);
+    expect(messageOf('3 V', 'power', 'Pin')).toMatch(/^Pin: "3 V" is not a power/);
   });
 
   test('SI symbols are case-sensitive: mHz is millihertz', () => {
