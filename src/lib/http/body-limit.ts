@@ -7,13 +7,14 @@ function tooLarge(maxBytes: number): HttpError {
 }
 
 /**
- * The request body as text, read to at most `maxBytes` (413 beyond), so an oversized body is refused
- * before it is parsed. Trusts neither Content-Length nor its absence: the stream itself is counted.
+ * The request body's bytes, read to at most `maxBytes`, so an oversized body is refused before it is
+ * parsed. Trusts neither Content-Length nor its absence: the stream itself is counted. `refuse` makes
+ * the 413 (callers name the field at fault, such as `file` for an upload).
  */
-export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+export async function readBodyBytes(request: Request, maxBytes: number, refuse: (maxBytes: number) => HttpError = tooLarge): Promise<Buffer<ArrayBuffer>> {
   const declared = Number(request.headers.get('content-length'));
-  if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge(maxBytes);
-  if (!request.body) return '';
+  if (Number.isFinite(declared) && declared > maxBytes) throw refuse(maxBytes);
+  if (!request.body) return Buffer.alloc(0);
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
@@ -23,9 +24,14 @@ export async function readBodyText(request: Request, maxBytes: number): Promise<
     size += value.byteLength;
     if (size > maxBytes) {
       await reader.cancel();
-      throw tooLarge(maxBytes);
+      throw refuse(maxBytes);
     }
     chunks.push(value);
   }
-  return Buffer.concat(chunks).toString('utf8');
+  return Buffer.concat(chunks);
+}
+
+/** The request body as UTF-8 text, read to at most `maxBytes` (413 beyond). */
+export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+  return (await readBodyBytes(request, maxBytes)).toString('utf8');
 }

@@ -1,6 +1,7 @@
 import 'server-only';
 import { HttpError, unprocessable, type FieldIssue } from '../http/errors';
 import { MAX_ATTACHMENT_BYTES } from './content-type';
+import { readBodyBytes } from '../http/body-limit';
 import { zodIssues } from '../http/respond';
 import { attachmentFieldsSchema, type AttachmentFields } from '../validations/attachment';
 
@@ -16,32 +17,16 @@ function tooLarge(maxBytes: number): HttpError {
 
 /**
  * The body of a multipart/form-data request, refused with 413 (naming `file`) as soon as it passes
- * `maxBytes`: first by its Content-Length, then by counting the stream, so nothing larger is held.
+ * `maxBytes` (the shared bounded reader: Content-Length first, then the stream counted).
  */
 export async function readMultipartForm(request: Request, maxBytes = MAX_UPLOAD_BODY_BYTES): Promise<FormData> {
   const contentType = request.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data\s*;/i.test(contentType)) {
     throw new HttpError(415, 'Send the file as multipart/form-data.', [{ path: '(body)', message: 'Expected multipart/form-data.' }]);
   }
-  const declared = Number(request.headers.get('content-length'));
-  if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge(maxBytes);
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  if (request.body) {
-    const reader = request.body.getReader();
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      size += value.byteLength;
-      if (size > maxBytes) {
-        await reader.cancel();
-        throw tooLarge(maxBytes);
-      }
-      chunks.push(value);
-    }
-  }
+  const body = await readBodyBytes(request, maxBytes, tooLarge);
   try {
-    return await new Response(Buffer.concat(chunks), { headers: { 'Content-Type': contentType } }).formData();
+    return await new Response(body, { headers: { 'Content-Type': contentType } }).formData();
   } catch {
     throw unprocessable('The upload could not be read; send it again.', [{ path: '(body)', message: 'Malformed multipart/form-data.' }]);
   }
