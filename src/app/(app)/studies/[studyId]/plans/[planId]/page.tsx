@@ -1,11 +1,8 @@
 import type { Metadata } from 'next';
-import { notFound } from 'next/navigation';
 import { PlanView } from '@/components/plans/plan-view';
 import { StudyPageFrame } from '@/components/studies/study-page-frame';
-import { loadStudyPage } from '@/lib/auth/study-page';
-import { getPlan } from '@/lib/data/plans';
+import { loadPlanPage, loadStudyPage } from '@/lib/auth/study-page';
 import { listSetups } from '@/lib/data/setups';
-import { HttpError } from '@/lib/http/errors';
 
 type Params = Promise<{ studyId: string; planId: string }>;
 
@@ -20,21 +17,14 @@ export async function generateMetadata({ params }: { params: Params }): Promise<
  */
 export default async function PlanPage({ params }: { params: Params }) {
   const { studyId, planId } = await params;
-  const { study, user } = await loadStudyPage(studyId);
-  if (!/^[1-9][0-9]{0,9}$/.test(planId)) notFound();
-  try {
-    await getPlan(user, study.id, Number(planId));
-  } catch (error) {
-    if (error instanceof HttpError && error.status === 404) notFound();
-    throw error;
-  }
+  const { study, user, plan } = await loadPlanPage(studyId, planId);
   const setups = await listSetups(user, study.id);
   return (
     <StudyPageFrame
       study={study}
       page="Plans"
     >
-      <PlanView studyId={study.id} planId={Number(planId)} allowedActions={study.allowedActions} initialSetups={setups} />
+      <PlanView studyId={study.id} planId={plan.id} allowedActions={study.allowedActions} initialSetups={setups} />
     </StudyPageFrame>
   );
 }
