@@ -11,57 +11,20 @@
  * at the end, so it runs beside `npm start` and `npm test`. The TypeScript sources are compiled on
  * require (scripts/lib/register-ts.cjs). Usage: node scripts/bench-import.mjs [--runs N]
  */
-import crypto from 'node:crypto';
-import os from 'node:os';
 import path from 'node:path';
 import Module, { createRequire } from 'node:module';
 import { fail, info, ok, reportError, setPrefix, step } from './lib/log.mjs';
 import { acquireLock, childEnv, getInstance, prepareDirs, readOrCreateSecret, recoverLeftovers, releaseLock, ROOT } from './lib/instance.mjs';
 import { databaseUrl, ensureDatabase, startMariaDb } from './lib/mariadb.mjs';
 import { migrate, seed } from './lib/database.mjs';
-import { installSignalHandlers, isAlive, onCleanup, processCmdline, readPidFile, runCleanups } from './lib/processes.mjs';
+import { installSignalHandlers, onCleanup, runCleanups } from './lib/processes.mjs';
 
 const runsArg = process.argv.indexOf('--runs');
 const RUNS = runsArg > 0 ? Number(process.argv[runsArg + 1]) : 3;
 const TARGET_MS = 10_000;
 /** Above the dev (3407) and test (3408) ports, so all three can run at once. */
-const BENCH_DB_PORT = 3490;
 
 setPrefix('[couplet bench-import]');
-
-/** The bench's own instance: the test instance's settings with its own directory, port and database. */
-function benchInstance() {
-  const test = getInstance('test');
-  const dir = path.join(ROOT, '.data', 'bench');
-  const mariadbDir = path.join(dir, 'mariadb');
-  let socket = path.join(mariadbDir, 'mysqld.sock');
-  if (Buffer.byteLength(socket) > 100) {
-    socket = path.join(os.tmpdir(), `couplet-bench-${crypto.createHash('sha1').update(dir).digest('hex').slice(0, 12)}.sock`);
-  }
-  return {
-    ...test,
-    name: 'bench',
-    dbPort: BENCH_DB_PORT + (test.dbPort - 3408),
-    dbName: 'couplet_bench',
-    dir,
-    logsDir: path.join(dir, 'logs'),
-    runDir: path.join(dir, 'run'),
-    mailDir: path.join(dir, 'mail'),
-    s3Dir: path.join(dir, 's3'),
-    mariadbDir,
-    socket,
-    mariadbPidFile: path.join(mariadbDir, 'mysqld.pid'),
-  };
-}
-
-/** The instance lock only knows start/test as live owners; another live bench run is refused here first. */
-function refuseSecondBench(inst) {
-  const pid = readPidFile(path.join(inst.runDir, 'owner.pid'));
-  if (pid && pid !== process.pid && isAlive(pid) && processCmdline(pid).includes('bench-import')) {
-    fail(`another bench-import is running (pid ${pid}); wait for it`);
-    process.exit(1);
-  }
-}
 
 /** The TypeScript sources, with `server-only` as the empty module it is on the server. */
 function loadSources() {
@@ -106,11 +69,13 @@ const median = (times) => [...times].sort((a, b) => a - b)[Math.floor(times.leng
 const ms = (t) => `${t.toFixed(0)} ms`;
 
 async function main() {
-  const inst = benchInstance();
+  const inst = getInstance('bench');
   prepareDirs(inst);
-  refuseSecondBench(inst);
   const busy = acquireLock(inst);
-  if (busy) throw new Error(`the bench instance is in use (pid ${busy})`);
+  if (busy) {
+    fail(`another bench-import is running (pid ${busy}); wait for it`);
+    process.exit(1);
+  }
   onCleanup('instance lock', () => releaseLock(inst));
   installSignalHandlers();
   await recoverLeftovers(inst);

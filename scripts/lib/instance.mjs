@@ -23,6 +23,8 @@ export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 const SETTINGS = {
   dev: { dbPort: 3407, dbName: 'couplet', smtpPort: 1025, inboxPort: 1080, s3Port: 4569, appPort: 3000, distDir: '.next' },
   test: { dbPort: 3408, dbName: 'couplet_test', smtpPort: 1026, inboxPort: 1081, s3Port: 4570, appPort: 3100, distDir: '.next-test' },
+  // scripts/bench-import.mjs: only its MariaDB runs; the other ports are reserved, never opened
+  bench: { dbPort: 3490, dbName: 'couplet_bench', smtpPort: 1027, inboxPort: 1082, s3Port: 4571, appPort: 3190, distDir: '.next-bench' },
 };
 
 /** The stand-in's bucket and s3rver's fixed credentials (it accepts no others). */
@@ -115,7 +117,7 @@ export function acquireLock(inst) {
       if (e.code !== 'EEXIST') throw e;
     }
     const pid = readPidFile(file);
-    if (pid && pid !== process.pid && isAlive(pid) && /scripts\/(start|test)\.mjs/.test(processCmdline(pid))) {
+    if (pid && pid !== process.pid && isAlive(pid) && /scripts\/(start|test|bench-import)\.mjs/.test(processCmdline(pid))) {
       return pid;
     }
     removeFile(file);
