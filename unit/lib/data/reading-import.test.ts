@@ -1,6 +1,6 @@
-import { createPlan, transitionPlan } from '../../../src/lib/data/plans';
-import { listPlanPoints, RUN_SHEET_COLUMNS, type PlanPoint } from '../../../src/lib/data/plan-points';
-import { planPredictionRun, setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
+import { transitionPlan } from '../../../src/lib/data/plans';
+import { RUN_SHEET_COLUMNS, type PlanPoint } from '../../../src/lib/data/plan-points';
+import { setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
 import { getColumnMap } from '../../../src/lib/data/reading-column-maps';
 import { commitReadingImport, previewReadingImport, ReadingImportRefused, REPORTED_PROBLEM_ROWS } from '../../../src/lib/data/reading-import';
 import { acknowledgeCautions, listReadings } from '../../../src/lib/data/readings';
@@ -8,9 +8,9 @@ import { BENCH_CAUTIONS_VERSION } from '../../../src/lib/readings/bench-cautions
 import { guessMapping, type CsvColumnMap } from '../../../src/lib/readings/csv-mapping';
 import { createSourceWorker } from '../../../src/lib/solver-pool/source-worker';
 import { SolverPool } from '../../../src/lib/solver-pool/solver-pool';
-import { planCreateSchema } from '../../../src/lib/validations/plan';
 import { csvColumnMapSchema } from '../../../src/lib/validations/reading-import';
 import { db, SEEDED, sessionUserByEmail, statusOf, studyIdByName } from '../../support/database';
+import { createPredictedPlan } from '../../support/predicted-plan';
 
 /** M = |V2| / (ω |I1|) (Keysight Impedance Measurement Handbook, mutual inductance): same formula, same doubles. */
 const SAME_FORMULA_TOLERANCE = 1e-12;
@@ -44,20 +44,14 @@ describe('CSV import of readings', () => {
   beforeAll(async () => {
     pool = new SolverPool({ size: 1, queueLimit: 64, timeoutMs: 60_000, createWorker: () => createSourceWorker() });
     setPlanSolverPool(pool);
-    const researcher = await sessionUserByEmail(SEEDED.researcher);
-    padId = await studyIdByName(SEEDED.padStudy);
-    const setup = await db('setups').where({ study_id: padId, name: 'Probe 10 cm deep, upright' }).first('id');
-    const plan = await createPlan(researcher, padId, planCreateSchema.parse({
-      name: 'CSV import drill', setupId: setup.id, repeats: 2, referenceEvery: null, orderMode: 'as_listed', shuffleSeed: null, minutesPerPoint: 2, notes: '',
+    ({ padId, planId, points } = await createPredictedPlan({
+      name: 'CSV import drill', repeats: 2, referenceEvery: null, orderMode: 'as_listed', shuffleSeed: null, notes: '',
       axes: [
         { quantity: 'tiltDeg', displayUnit: 'deg', mode: 'list', values: [0, 30] },
         { quantity: 'distance', displayUnit: 'cm', mode: 'list', values: [0.05, 0.1] },
       ],
     }));
-    planId = plan.id;
-    await planPredictionRun(planId);
-    await transitionPlan(researcher, padId, planId, { to: 'on_bench' });
-    points = await listPlanPoints(researcher, padId, planId);
+    await transitionPlan(await sessionUserByEmail(SEEDED.researcher), padId, planId, { to: 'on_bench' });
     mapping = csvColumnMapSchema.parse(guessMapping(HEADER.split(',')));
   });
 

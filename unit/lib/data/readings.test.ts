@@ -1,15 +1,15 @@
-import { createPlan, transitionPlan } from '../../../src/lib/data/plans';
-import { listPlanPoints, type PlanPoint } from '../../../src/lib/data/plan-points';
-import { planPredictionRun, setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
+import { transitionPlan } from '../../../src/lib/data/plans';
+import { type PlanPoint } from '../../../src/lib/data/plan-points';
+import { setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
 import { acknowledgeCautions, correctReading, createReading, getCautionAcknowledgement, listReadings } from '../../../src/lib/data/readings';
 import { createAttachment } from '../../../src/lib/data/attachments';
 import { createReadingFromTouchstone } from '../../../src/lib/data/readings-from-touchstone';
 import { BENCH_CAUTIONS_VERSION } from '../../../src/lib/readings/bench-cautions';
 import { createSourceWorker } from '../../../src/lib/solver-pool/source-worker';
 import { SolverPool } from '../../../src/lib/solver-pool/solver-pool';
-import { planCreateSchema } from '../../../src/lib/validations/plan';
 import { readingCorrectionSchema, readingCreateSchema, readingFromFileSchema } from '../../../src/lib/validations/reading';
-import { db, SEEDED, sessionUserByEmail, statusOf, studyIdByName } from '../../support/database';
+import { db, SEEDED, sessionUserByEmail, statusOf } from '../../support/database';
+import { createPredictedPlan } from '../../support/predicted-plan';
 
 /**
  * Readings on a plan of this file's own, taken to the bench: who may log, the cautions gate, the
@@ -28,16 +28,9 @@ describe('readings data', () => {
   beforeAll(async () => {
     pool = new SolverPool({ size: 1, queueLimit: 64, timeoutMs: 60_000, createWorker: () => createSourceWorker() });
     setPlanSolverPool(pool);
-    const researcher = await sessionUserByEmail(SEEDED.researcher);
-    padId = await studyIdByName(SEEDED.padStudy);
-    const setup = await db('setups').where({ study_id: padId, name: 'Probe 10 cm deep, upright' }).first('id');
-    const plan = await createPlan(researcher, padId, planCreateSchema.parse({
-      name: 'Readings drill', setupId: setup.id, minutesPerPoint: 2,
-      axes: [{ quantity: 'distance', displayUnit: 'cm', mode: 'list', values: [0.06, 0.1, 0.14] }],
+    ({ padId, planId, points } = await createPredictedPlan({
+      name: 'Readings drill', axes: [{ quantity: 'distance', displayUnit: 'cm', mode: 'list', values: [0.06, 0.1, 0.14] }],
     }));
-    planId = plan.id;
-    await planPredictionRun(planId);
-    points = await listPlanPoints(researcher, padId, planId);
   });
   afterAll(async () => {
     setPlanSolverPool(null);
