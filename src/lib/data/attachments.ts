@@ -4,13 +4,13 @@ import type { Knex } from 'knex';
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
-import { conflict, HttpError, notFound, unprocessable } from '../http/errors';
-import { PLAN_STATE_LABELS, type PlanState } from '../plans/states';
+import { HttpError, notFound, unprocessable } from '../http/errors';
 import { checkAttachmentContent, type AttachmentContentType, type AttachmentKind } from '../storage/content-type';
 import { attachmentObjectKey, sanitizeFileName } from '../storage/object-keys';
 import { deleteObject, putObject, readObject, signedDownloadUrl } from '../storage/object-store';
 import { attachmentFieldsSchema } from '../validations/attachment';
 import { recordAudit } from './audit';
+import { requirePlanInStudy, requirePlanOnBench } from './plan-lookup';
 
 /** A photo or instrument file attached to a plan or one of its points; the bytes are in the object store. */
 export interface Attachment {
@@ -107,13 +107,7 @@ async function findAttachmentRow(studyId: number, attachmentId: number): Promise
  * before the caller's transaction ends.
  */
 async function requireBenchTarget(trx: Knex | Knex.Transaction, studyId: number, planId: number, pointId: number | null, lock = false) {
-  const query = trx('sweep_plans').where({ id: planId, study_id: studyId });
-  if (lock) query.forShare();
-  const plan: { state: PlanState } | undefined = await query.first('state');
-  if (!plan) throw notFound('No such plan in this study.');
-  if (plan.state !== 'on_bench') {
-    throw conflict(`Files can be attached only while the plan is on the bench; this plan is ${PLAN_STATE_LABELS[plan.state]}.`);
-  }
+  await requirePlanOnBench(trx, studyId, planId, (state) => `Files can be attached only while the plan is on the bench; this plan is ${state}.`, { lock });
   if (pointId !== null && !(await trx('sweep_points').where({ id: pointId, plan_id: planId }).first('id'))) {
     throw unprocessable('Some fields need attention.', [{ path: 'pointId', message: 'Choose a point of this plan.' }]);
   }
@@ -175,7 +169,7 @@ export async function createAttachment(actor: SessionUser, studyId: number, plan
 /** The plan's files, newest first (any member; admins). */
 export async function listAttachments(viewer: SessionUser, studyId: number, planId: number): Promise<Attachment[]> {
   await requireStudyAccess(viewer, studyId, 'study.view');
-  if (!(await db('sweep_plans').where({ id: planId, study_id: studyId }).first('id'))) throw notFound('No such plan in this study.');
+  await requirePlanInStudy(db, studyId, planId);
   const rows: AttachmentRow[] = await attachmentQuery(db, studyId).where('a.plan_id', planId).orderBy('a.created_at', 'desc').orderBy('a.id', 'desc');
   return rows.map(toAttachment);
 }

@@ -3,10 +3,10 @@ import Papa from 'papaparse';
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
-import { notFound } from '../http/errors';
 import type { PlanPose } from '../plans/points';
 import type { PointPrediction } from '../plans/prediction';
 import { fromJsonColumn } from './json-column';
+import { requirePlanInStudy } from './plan-lookup';
 
 /** One point of a plan's run sheet, SI. */
 export interface PlanPoint {
@@ -34,8 +34,7 @@ interface PointRow {
 /** The plan's points in measurement order, with the pose and the published predictions. */
 export async function listPlanPoints(viewer: SessionUser, studyId: number, planId: number): Promise<PlanPoint[]> {
   await requireStudyAccess(viewer, studyId, 'study.view');
-  const plan = await db('sweep_plans').where({ id: planId, study_id: studyId }).first('id');
-  if (!plan) throw notFound('No such plan in this study.');
+  await requirePlanInStudy(db, studyId, planId);
   const rows: PointRow[] = await db('sweep_points').where({ plan_id: planId }).orderBy('seq')
     .select('id', 'seq', 'repeat_index', 'is_reference', 'pose', 'predicted', 'solver_version');
   return rows.map((row) => ({

@@ -6,7 +6,6 @@ import type { SessionUser } from '../auth/session-user';
 import { conflict, forbidden, notFound, unprocessable } from '../http/errors';
 import type { PlanPose } from '../plans/points';
 import type { PointPrediction } from '../plans/prediction';
-import { PLAN_STATE_LABELS, type PlanState } from '../plans/states';
 import { BENCH_CAUTIONS_VERSION } from '../readings/bench-cautions';
 import type { AchievedPose, CalibrationState, ReadingCorrection, ReadingCreate } from '../validations/reading';
 import { deriveReading, methodFitWarning } from '../../physics/measurement/derive';
@@ -14,6 +13,7 @@ import { METHOD_SPECS, type InstrumentAccuracy, type MeasurementMethod, type Raw
 import { ReadingInputError, type Derivation } from '../../physics/measurement/types';
 import { recordAudit } from './audit';
 import { fromJsonColumn, toJsonColumn } from './json-column';
+import { requirePlanInStudy, requirePlanOnBench } from './plan-lookup';
 
 /**
  * Readings logged at the bench. Every row is immutable: a correction inserts version n + 1 of the
@@ -125,11 +125,6 @@ function readingQuery(trx: Knex | Knex.Transaction, planId: number) {
     );
 }
 
-async function requirePlanInStudy(trx: Knex | Knex.Transaction, studyId: number, planId: number): Promise<void> {
-  const plan = await trx('sweep_plans').where({ id: planId, study_id: studyId }).first('id');
-  if (!plan) throw notFound('No such plan in this study.');
-}
-
 /** Every version of every reading of the plan, in measurement order and then version order. */
 export async function listReadings(viewer: SessionUser, studyId: number, planId: number): Promise<Reading[]> {
   await requireStudyAccess(viewer, studyId, 'study.view');
@@ -167,13 +162,6 @@ export interface BenchContext {
   pointsBySeq: Map<number, BenchPoint>;
 }
 
-async function lockPlanState(trx: Knex.Transaction, studyId: number, planId: number): Promise<{ name: string; state: PlanState }> {
-  // FOR SHARE: many readings may be logged at once, but a state change (FOR UPDATE) waits for them.
-  const plan = await trx('sweep_plans').where({ id: planId, study_id: studyId }).forShare().first('name', 'state');
-  if (!plan) throw notFound('No such plan in this study.');
-  return plan;
-}
-
 /** Whether `actor` acknowledged the current bench cautions on this plan. */
 async function hasAcknowledged(trx: Knex | Knex.Transaction, planId: number, userId: number): Promise<boolean> {
   const row = await trx('caution_acknowledgements').where({ plan_id: planId, user_id: userId, cautions_version: BENCH_CAUTIONS_VERSION }).first('id');
@@ -186,10 +174,7 @@ async function hasAcknowledged(trx: Knex | Knex.Transaction, planId: number, use
  */
 export async function openBench(trx: Knex.Transaction, actor: SessionUser, studyId: number, planId: number): Promise<BenchContext> {
   await requireStudyAccess(actor, studyId, 'readings.log', trx);
-  const plan = await lockPlanState(trx, studyId, planId);
-  if (plan.state !== 'on_bench') {
-    throw conflict(`This plan is ${PLAN_STATE_LABELS[plan.state]}: readings are logged only while it is on the bench.`);
-  }
+  const plan = await requirePlanOnBench(trx, studyId, planId, (state) => `This plan is ${state}: readings are logged only while it is on the bench.`, { lock: true });
   if (!(await hasAcknowledged(trx, planId, actor.id))) {
     throw conflict('Acknowledge the bench cautions before logging the first reading on this plan.', [
       { path: 'cautions', message: 'Read and acknowledge the bench cautions.' },
