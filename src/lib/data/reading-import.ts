@@ -69,7 +69,8 @@ export class ReadingImportRefused extends HttpError {
       ...report.rows.flatMap((row) => row.problems.map((p) => ({ path: `rows.${row.line}.${p.field}`, message: p.message }))),
     ];
     const what = report.withProblems > 0 ? `${report.withProblems.toLocaleString('en')} of ${report.total.toLocaleString('en')} rows need attention` : 'The file needs attention';
-    super(422, `${what}; nothing was imported.`, issues);
+    // the report travels in the 422's body, so the page shows the refused rows as the check does
+    super(422, `${what}; nothing was imported.`, issues, {}, { report });
     this.name = 'ReadingImportRefused';
   }
 }

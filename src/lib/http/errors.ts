@@ -14,6 +14,8 @@ export class HttpError extends Error {
     readonly issues: FieldIssue[] = [],
     /** Response headers that belong with this error, such as Retry-After on a 503. */
     readonly headers: Record<string, string> = {},
+    /** More of the answer's body beside `error` and `issues`, such as a refused import's row report. */
+    readonly body: Record<string, unknown> = {},
   ) {
     super(message);
     this.name = 'HttpError';

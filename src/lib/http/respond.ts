@@ -23,7 +23,7 @@ export function errorResponse(error: unknown): Response {
     return Response.json({ error: 'Some fields need attention.', issues: zodIssues(error) }, { status: 422 });
   }
   if (error instanceof HttpError) {
-    return Response.json({ error: error.message, issues: error.issues }, { status: error.status, headers: error.headers });
+    return Response.json({ ...error.body, error: error.message, issues: error.issues }, { status: error.status, headers: error.headers });
   }
   if (isDuplicateKey(error)) {
     return Response.json({ error: 'That already exists.', issues: [] }, { status: 409 });

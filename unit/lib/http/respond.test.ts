@@ -27,6 +27,12 @@ describe('errorResponse', () => {
     const text = await response.text();
     expect(text).not.toMatch(/SELECT|users|\/srv|\.ts/);
   });
+  test('an error carrying more of the body sends it beside the message and issues, which it cannot replace', async () => {
+    const refused = new HttpError(422, 'Nothing was imported.', [{ path: 'rows.3.raw.rxVoltage', message: 'Not a voltage.' }], {}, { report: { total: 3 }, error: 'ignored' });
+    const response = errorResponse(refused);
+    expect(response.status).toBe(422);
+    expect(await response.json()).toEqual({ error: 'Nothing was imported.', issues: [{ path: 'rows.3.raw.rxVoltage', message: 'Not a voltage.' }], report: { total: 3 } });
+  });
   test('a duplicate key is a 409', () => {
     expect(errorResponse(Object.assign(new Error('dup'), { code: 'ER_DUP_ENTRY' })).status).toBe(409);
   });
