@@ -155,7 +155,7 @@ async function seedBenchReadings(knex: Knex, { planId, studentId, frequency }: {
   for (const point of points) {
     const pose = typeof point.pose === 'string' ? JSON.parse(point.pose) : point.pose;
     const predicted = typeof point.predicted === 'string' ? JSON.parse(point.predicted) : point.predicted;
-    const context = { predicted: { coupling: predicted.coupling, txSelfInductance: predicted.txSelfInductance, rxSelfInductance: predicted.rxSelfInductance } };
+    const context = { predicted };
     // a repeatable scatter of about 2 % plus a bias that grows with tilt
     const deviation = 0.02 * Math.sin(point.seq * 2.1) - 0.004 * (pose.tiltDeg / 15);
     const txCurrent = 0.25;

@@ -123,8 +123,7 @@ export function ReadingForm({ studyId, planId, point, loggedMethods, correcting,
   const preview = useMemo((): { derived: Derivation | null; problem: string | null } => {
     if (Object.keys(parsed.errors).length > 0) return { derived: null, problem: null };
     try {
-      const context = predicted ? { predicted: { coupling: predicted.coupling, txSelfInductance: predicted.txSelfInductance, rxSelfInductance: predicted.rxSelfInductance } } : { predicted: null };
-      return { derived: deriveReading(method, parsed.body.raw, parsed.body.accuracy, context), problem: null };
+      return { derived: deriveReading(method, parsed.body.raw, parsed.body.accuracy, { predicted }), problem: null };
     } catch (error) {
       return { derived: null, problem: error instanceof ReadingInputError || error instanceof RangeError ? error.message : null };
     }

@@ -221,9 +221,8 @@ export type ReadingInput = Omit<ReadingCreate, 'pointId'>;
  * its field, prefixed with `pathPrefix` (the CSV import puts the row there).
  */
 export function deriveAtPoint(point: BenchPoint, input: ReadingInput, pathPrefix = ''): Derivation {
-  const predicted = point.predicted
-    ? { coupling: point.predicted.coupling, txSelfInductance: point.predicted.txSelfInductance, rxSelfInductance: point.predicted.rxSelfInductance }
-    : null;
+  // a point's prediction carries the coupling and self-inductances a derivation leans on
+  const predicted = point.predicted;
   let derived: Derivation;
   try {
     derived = deriveReading(input.method, input.raw, input.accuracy, { predicted });
