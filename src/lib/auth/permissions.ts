@@ -16,6 +16,7 @@ export const STUDY_ACTIONS = [
   'readings.log',
   'comments.write',
   'plan.decide',
+  'review.analyse',
 ] as const;
 export type StudyAction = (typeof STUDY_ACTIONS)[number];
 
@@ -27,6 +28,7 @@ export const STUDY_PERMISSIONS: Record<StudyAction, { roles: readonly StudyRole[
   'readings.log': { roles: ['researcher', 'student'], admin: false, label: 'Log readings and upload files' },
   'comments.write': { roles: ['researcher', 'student', 'supervisor'], admin: false, label: 'Comment on points' },
   'plan.decide': { roles: ['supervisor'], admin: false, label: 'Accept or return a plan' },
+  'review.analyse': { roles: ['researcher', 'supervisor'], admin: false, label: 'Set outliers aside, fit effective parameters, set the review tolerance' },
 };
 
 export interface Actor {

@@ -21,6 +21,9 @@ const EXPECTED: Record<StudyAction, [boolean, boolean, boolean, boolean]> = {
   'comments.write': [true, true, true, false], // comment on points
   'plan.decide': [false, false, true, false], // accept / return a plan
   'study.view': [true, true, true, true], // see the study
+  // not a row of the product table: the analysis behind a decision (outliers set aside, fits, tolerance)
+  // is the reviewer's and the plan's author's work, not the bench's
+  'review.analyse': [true, false, true, false],
 };
 
 const ROLE_COLUMNS: StudyRole[] = ['researcher', 'student', 'supervisor'];
