@@ -7,6 +7,7 @@ import { runSolveJob } from '../../src/lib/solver-pool/job';
 import { awgDiameter } from '../../src/lib/units/awg';
 import { BENCH_CAUTIONS_VERSION } from '../../src/lib/readings/bench-cautions';
 import { deriveReading } from '../../src/physics/measurement/derive';
+import { seedReviewPlan } from './support/review-demo';
 
 /**
  * Demo data: an invented lab, the "Fernbrook Soil Robotics group", charging buried soil-moisture
@@ -29,7 +30,7 @@ export async function seed(knex: Knex): Promise<void> {
   // Children first, so foreign keys never block the reset. A correction references the version it
   // supersedes, so readings go newest version first.
   await knex.raw('DELETE FROM readings ORDER BY version DESC');
-  for (const table of ['attachments', 'caution_acknowledgements', 'reading_column_maps', 'audit_events', 'invitations', 'sweep_points', 'sweep_plans', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
+  for (const table of ['plan_reviews', 'plan_fits', 'outlier_marks', 'plan_comments', 'attachments', 'caution_acknowledgements', 'reading_column_maps', 'audit_events', 'invitations', 'sweep_points', 'sweep_plans', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
     await knex(table).del();
   }
 
@@ -131,6 +132,7 @@ export async function seed(knex: Knex): Promise<void> {
   })));
 
   await seedBenchReadings(knex, { planId: tiltPlan, studentId: ids.student, frequency: geometry.circuit.frequency });
+  await seedReviewPlan(knex, { studyId: padStudy, setupId: deepSetup, geometry, ids });
 
   await knex('audit_events').insert([
     { study_id: padStudy, actor_id: ids.researcher, action: 'plan.create', target_table: 'sweep_plans', target_id: String(tiltPlan), details: JSON.stringify({ seeded: true }) },

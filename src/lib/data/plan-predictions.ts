@@ -31,7 +31,7 @@ export function setPlanSolverPool(pool: PoolLike | null): void {
   poolOverride = pool;
 }
 
-async function planPool(): Promise<PoolLike> {
+export async function planPool(): Promise<PoolLike> {
   // Imported on first use: server-pool.ts bundles the worker (Turbopack), which jest cannot load.
   return poolOverride ?? (await import('../solver-pool/server-pool')).serverSolverPool();
 }
@@ -75,7 +75,8 @@ async function stillCurrent(trx: Knex.Transaction, planId: number, runId: string
   return !!row && row.prediction_run_id === runId && row.prediction_status === 'running';
 }
 
-async function loadGeometry(planId: number): Promise<PlanSetupGeometry | null> {
+/** The setup's coils, circuit and operator point behind a plan, or null when the plan is gone. */
+export async function loadGeometry(planId: number): Promise<PlanSetupGeometry | null> {
   const row = await db('sweep_plans')
     .join('setups', 'setups.id', 'sweep_plans.setup_id')
     .join('coils as tx', 'tx.id', 'setups.transmitter_coil_id')

@@ -5,6 +5,7 @@ import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
 import { conflict, HttpError, notFound, unprocessable } from '../http/errors';
 import { serverEnv } from '../env';
+import { recordDecision } from './plan-decisions';
 import { planSubmittedMail } from '../mail/templates';
 import { sendMail } from '../mail/transport';
 import type { PlanAxis } from '../plans/axes';
@@ -263,6 +264,7 @@ export async function transitionPlan(actor: SessionUser, studyId: number, planId
       details: { name: row.name, from: row.state, to: input.to, ...(input.reason ? { reason: input.reason } : {}) },
     });
     if (input.to === 'in_review') await notifyReviewers(trx, actor, studyId, planId, row.name);
+    if (row.state === 'in_review') await recordDecision(trx, actor, studyId, planId, row.name, input);
   });
   return getPlan(actor, studyId, planId);
 }
@@ -282,7 +284,7 @@ async function notifyReviewers(trx: Knex.Transaction, actor: SessionUser, studyI
     .whereNull('users.disabled_at')
     .select('users.email');
   const study = await trx('studies').where({ id: studyId }).first('name');
-  const link = `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}`;
+  const link = `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}/review`;
   const pointCount = Number((await trx('sweep_points').where({ plan_id: planId }).count({ n: '*' }).first())?.n ?? 0);
   try {
     for (const supervisor of supervisors) {

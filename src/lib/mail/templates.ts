@@ -65,3 +65,37 @@ export function planSubmittedMail(input: PlanSubmittedMailInput): { subject: str
 <p><a href="${escapeHtml(input.link)}">Open the plan</a> to compare predicted and measured values.</p>`;
   return { subject, text, html };
 }
+
+export interface PlanDecisionMailInput {
+  studyName: string;
+  planName: string;
+  reviewerName: string;
+  decision: 'accepted' | 'returned';
+  /** required when returned */
+  reason: string;
+  /** the plan's review page */
+  link: string;
+  /** e.g. "RMS relative error of k 3.21 % over 8 poses", or null when nothing was compared */
+  agreement: string | null;
+}
+
+/** To the study's researchers and students when a supervisor accepts a plan or returns it to the bench. */
+export function planDecisionMail(input: PlanDecisionMailInput): { subject: string; text: string; html: string } {
+  const accepted = input.decision === 'accepted';
+  const subject = accepted
+    ? `"${input.planName}" was accepted (${input.studyName})`
+    : `"${input.planName}" was returned to the bench (${input.studyName})`;
+  const headline = accepted
+    ? `${input.reviewerName} accepted the plan "${input.planName}" of the study "${input.studyName}".`
+    : `${input.reviewerName} returned the plan "${input.planName}" of the study "${input.studyName}" to the bench.`;
+  const reasonLabel = accepted ? 'Note' : 'Reason';
+  const lines = [headline];
+  if (input.reason) lines.push('', `${reasonLabel}: ${input.reason}`);
+  if (input.agreement) lines.push('', input.agreement);
+  lines.push('', accepted ? 'Open the review:' : 'Open the review, then correct or add readings in the logbook and send the plan again:', input.link);
+  const html = `<p>${escapeHtml(headline)}</p>
+${input.reason ? `<p><strong>${reasonLabel}:</strong> ${escapeHtml(input.reason)}</p>` : ''}
+${input.agreement ? `<p>${escapeHtml(input.agreement)}</p>` : ''}
+<p><a href="${escapeHtml(input.link)}">Open the review</a>${accepted ? '' : ', then correct or add readings in the logbook and send the plan again'}.</p>`;
+  return { subject, text: lines.join('\n'), html };
+}

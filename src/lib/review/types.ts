@@ -105,7 +105,7 @@ export interface OutlierMark {
   createdAt: string;
 }
 
-/** Effective parameters a fit can estimate (src/physics/review/models.ts). */
+/** Effective parameters a fit can estimate (src/lib/review/fit-models.ts). */
 export const FIT_MODELS = ['tilt_offset', 'lateral_offset', 'distance_offset', 'extra_rx_resistance'] as const;
 export type FitModel = (typeof FIT_MODELS)[number];
 

@@ -1,0 +1,61 @@
+import 'server-only';
+import type { Knex } from 'knex';
+import type { SessionUser } from '../auth/session-user';
+import { serverEnv } from '../env';
+import { HttpError, unprocessable } from '../http/errors';
+import { planDecisionMail } from '../mail/templates';
+import { sendMail } from '../mail/transport';
+import { formatPercent } from '../review/format';
+import type { AgreementSummary, ReviewDecision } from '../review/types';
+import type { PlanTransitionInput } from '../validations/plan';
+import { toJsonColumn } from './json-column';
+import { lockablePlanHead, reviewWithin } from './review';
+
+/**
+ * A supervisor's decision on a plan in review, inside the transition's transaction: the decision row
+ * (who, when, why, and the agreement they decided on) and the e-mail to the study's researchers and
+ * students. When the e-mail cannot be sent nothing is stored (503), so nobody misses a decision.
+ */
+
+/** One line for the e-mail: the figure a reader looks for first. */
+function agreementLine(summary: AgreementSummary | null): string | null {
+  if (!summary || summary.rmsRelative === null) return null;
+  return `RMS relative error of the coupling coefficient k: ${formatPercent(summary.rmsRelative)} over ${summary.compared} pose${summary.compared === 1 ? '' : 's'}`
+    + ` (${summary.outsideTolerance} outside ±${formatPercent(summary.tolerance, 0)}).`;
+}
+
+export async function recordDecision(
+  trx: Knex.Transaction,
+  actor: SessionUser,
+  studyId: number,
+  planId: number,
+  planName: string,
+  input: PlanTransitionInput,
+): Promise<void> {
+  const decision: ReviewDecision = input.to === 'accepted' ? 'accepted' : 'returned';
+  const reason = input.reason?.trim() ?? '';
+  if (decision === 'returned' && !reason) {
+    throw unprocessable('Some fields need attention.', [{ path: 'reason', message: 'Say what the bench should fix before the plan comes back.' }]);
+  }
+  const review = await reviewWithin(trx, await lockablePlanHead(trx, studyId, planId), 'coupling');
+  const summary = review.summary.compared > 0 ? review.summary : null;
+  await trx('plan_reviews').insert({ plan_id: planId, decision, reason: reason || null, reviewer_id: actor.id, summary: toJsonColumn(summary) });
+
+  const recipients: { email: string }[] = await trx('study_members')
+    .join('users', 'users.id', 'study_members.user_id')
+    .where('study_members.study_id', studyId)
+    .whereIn('study_members.role', ['researcher', 'student'])
+    .whereNull('users.disabled_at')
+    .select('users.email');
+  const study = await trx('studies').where({ id: studyId }).first('name');
+  const mail = planDecisionMail({
+    studyName: study.name, planName, reviewerName: actor.name, decision, reason,
+    link: `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}/review`, agreement: agreementLine(summary),
+  });
+  try {
+    for (const recipient of recipients) await sendMail({ to: recipient.email, ...mail });
+  } catch (error) {
+    console.error('Decision notification failed', error);
+    throw new HttpError(503, 'The researchers and students could not be notified, so the decision was not recorded. Try again in a moment.');
+  }
+}
