@@ -2,7 +2,8 @@
 /**
  * Next.js configuration.
  * - Knex, mysql2, the AWS S3 SDK and the other server libraries below stay plain Node requires on the
- *   server (Turbopack must not bundle them).
+ *   server (Turbopack must not bundle them); pdfkit finds its own data files (font metrics, colour
+ *   profile) next to its code through a require made from its __filename.
  * - Security headers on every response: a content security policy that still lets the app (and its
  *   3D bench's Web Workers and canvas) work, no framing, no MIME sniffing.
  * - Attached photos are shown with <img src="/api/.../attachments/ID">, which redirects to a signed
@@ -62,7 +63,7 @@ const nextConfig = {
   distDir: process.env.COUPLET_DIST_DIR || '.next',
   poweredByHeader: false,
   reactStrictMode: true,
-  serverExternalPackages: ['knex', 'mysql2', 'nodemailer', 'rate-limiter-flexible', 'bcryptjs', '@aws-sdk/client-s3', '@aws-sdk/s3-request-presigner'],
+  serverExternalPackages: ['knex', 'mysql2', 'nodemailer', 'rate-limiter-flexible', 'bcryptjs', '@aws-sdk/client-s3', '@aws-sdk/s3-request-presigner', 'pdfkit'],
   async headers() {
     return [{ source: '/:path*', headers: securityHeaders }];
   },
