@@ -1,14 +1,15 @@
 'use client';
 
-import { HeatmapChart, LineChart } from 'echarts/charts';
+import { CustomChart, HeatmapChart, LineChart, ScatterChart } from 'echarts/charts';
 import { GridComponent, LegendComponent, TooltipComponent, VisualMapComponent } from 'echarts/components';
 import * as echarts from 'echarts/core';
 import { CanvasRenderer, SVGRenderer } from 'echarts/renderers';
 import { useEffect, useRef } from 'react';
 import { Button } from '@/components/ui/button';
 
-// Only what the plan charts use, so the bundle stays small; this module loads only on plan pages.
-echarts.use([LineChart, HeatmapChart, GridComponent, TooltipComponent, LegendComponent, VisualMapComponent, CanvasRenderer, SVGRenderer]);
+// Only what the plan and review charts use (scatter for readings, custom for error bars and bands), so
+// the bundle stays small; this module loads only on plan pages.
+echarts.use([LineChart, HeatmapChart, ScatterChart, CustomChart, GridComponent, TooltipComponent, LegendComponent, VisualMapComponent, CanvasRenderer, SVGRenderer]);
 
 export type ChartOption = echarts.EChartsCoreOption;
 

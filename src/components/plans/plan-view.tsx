@@ -92,9 +92,14 @@ export function PlanView({ studyId, planId, allowedActions, initialSetups }: Pla
               </Button>
             ) : (
               plan.state !== 'draft' && (
-                <Link href={`/studies/${studyId}/plans/${plan.id}/logbook`} className={buttonClasses('primary', 'sm')}>
-                  Open the logbook
-                </Link>
+                <>
+                  <Link href={`/studies/${studyId}/plans/${plan.id}/logbook`} className={buttonClasses('primary', 'sm')}>
+                    Open the logbook
+                  </Link>
+                  <Link href={`/studies/${studyId}/plans/${plan.id}/review`} className={buttonClasses('secondary', 'sm')}>
+                    Open the review
+                  </Link>
+                </>
               )
             )
           }

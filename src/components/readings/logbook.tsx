@@ -174,6 +174,9 @@ export function Logbook({ studyId, planId, viewerId, allowedActions }: LogbookPr
             <Link href={`/studies/${studyId}/plans/${planId}`} className="font-medium text-copper-700 hover:underline">
               Plan and predictions
             </Link>
+            <Link href={`/studies/${studyId}/plans/${planId}/review`} className="font-medium text-copper-700 hover:underline">
+              Review
+            </Link>
           </span>
         }
         actions={<PlanStateActions studyId={studyId} plan={plan} allowedActions={allowedActions} onChanged={(next: Plan) => void mutatePlan({ plan: next })} />}
