@@ -5,12 +5,13 @@ import { usePathname } from 'next/navigation';
 import { cn } from '@/components/ui/cn';
 import { isCurrentPath } from '@/components/shell/is-current-path';
 
-/** The pages of one study, in the order work goes: what it is, its coils, the 3D bench, its sweep plans. */
+/** The pages of one study, in the order work goes: what it is, its coils, the 3D bench, its sweep plans; then its history. */
 const SECTIONS = [
   { label: 'Overview', path: '' },
   { label: 'Coils', path: '/coils' },
   { label: 'Bench', path: '/bench' },
   { label: 'Plans', path: '/plans' },
+  { label: 'History', path: '/history' },
 ] as const;
 
 /** Tabs between a study's pages; the current one is marked for people and for screen readers. */
