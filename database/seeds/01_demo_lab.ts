@@ -26,6 +26,9 @@ export const DEMO_ACCOUNTS = {
 /** Lower than the app's cost: seeding speed matters in tests, and these passwords are public anyway. */
 const SEED_BCRYPT_COST = 10;
 
+/** A moment `days` before the seeding, for the demo's history. */
+const daysAgo = (days: number) => new Date(Date.now() - days * 86_400_000);
+
 export async function seed(knex: Knex): Promise<void> {
   // Children first, so foreign keys never block the reset. A correction references the version it
   // supersedes, so readings go newest version first.
@@ -132,14 +135,15 @@ export async function seed(knex: Knex): Promise<void> {
   })));
 
   await seedBenchReadings(knex, { planId: tiltPlan, studentId: ids.student, frequency: geometry.circuit.frequency });
-  await seedReviewPlan(knex, { studyId: padStudy, setupId: deepSetup, geometry, ids });
 
+  // The history reads as the lab lived it: studies and setup first, then the plans, days apart.
   await knex('audit_events').insert([
-    { study_id: padStudy, actor_id: ids.researcher, action: 'plan.create', target_table: 'sweep_plans', target_id: String(tiltPlan), details: JSON.stringify({ seeded: true }) },
-    { study_id: padStudy, actor_id: ids.researcher, action: 'study.create', target_table: 'studies', target_id: String(padStudy), details: JSON.stringify({ seeded: true }) },
-    { study_id: railStudy, actor_id: ids.otherResearcher, action: 'study.create', target_table: 'studies', target_id: String(railStudy), details: JSON.stringify({ seeded: true }) },
-    { study_id: padStudy, actor_id: ids.researcher, action: 'setup.create', target_table: 'setups', target_id: String(deepSetup), details: JSON.stringify({ seeded: true }) },
+    { study_id: padStudy, actor_id: ids.researcher, action: 'study.create', target_table: 'studies', target_id: String(padStudy), details: JSON.stringify({ seeded: true }), created_at: daysAgo(20) },
+    { study_id: railStudy, actor_id: ids.otherResearcher, action: 'study.create', target_table: 'studies', target_id: String(railStudy), details: JSON.stringify({ seeded: true }), created_at: daysAgo(18) },
+    { study_id: padStudy, actor_id: ids.researcher, action: 'setup.create', target_table: 'setups', target_id: String(deepSetup), details: JSON.stringify({ seeded: true }), created_at: daysAgo(16) },
+    { study_id: padStudy, actor_id: ids.researcher, action: 'plan.create', target_table: 'sweep_plans', target_id: String(tiltPlan), details: JSON.stringify({ seeded: true }), created_at: daysAgo(12) },
   ]);
+  await seedReviewPlan(knex, { studyId: padStudy, setupId: deepSetup, geometry, ids, daysAgo });
 }
 
 /**

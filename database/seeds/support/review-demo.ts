@@ -25,12 +25,13 @@ interface Context {
   setupId: number;
   geometry: PlanSetupGeometry;
   ids: { researcher: number; student: number };
+  daysAgo: (days: number) => Date;
 }
 
 const solveAt = (geometry: PlanSetupGeometry, pose: Parameters<typeof pointSolveJob>[1]): PointPrediction =>
   pointPrediction(runSolveJob(pointSolveJob(geometry, pose)));
 
-export async function seedReviewPlan(knex: Knex, { studyId, setupId, geometry, ids }: Context): Promise<number> {
+export async function seedReviewPlan(knex: Knex, { studyId, setupId, geometry, ids, daysAgo }: Context): Promise<number> {
   const layout: PlanLayout = {
     axes: [{ quantity: 'tiltDeg', displayUnit: 'deg', mode: 'range', start: 0, stop: 60, step: 10 }],
     repeats: 2, referenceEvery: null, orderMode: 'as_listed', shuffleSeed: null,
@@ -42,7 +43,7 @@ export async function seedReviewPlan(knex: Knex, { studyId, setupId, geometry, i
     axes: JSON.stringify(layout.axes), repeats: layout.repeats, reference_every: null, order_mode: layout.orderMode,
     shuffle_seed: null, minutes_per_point: 2, notes: 'Tilt jig on the bench rig; probe centre held on the pad axis at 10 cm.',
     prediction_status: 'done', prediction_progress: planPoints.length, prediction_total: planPoints.length, solver_version: SOLVER_VERSION,
-    created_by: ids.researcher,
+    created_by: ids.researcher, created_at: daysAgo(9), updated_at: daysAgo(2),
   });
   const pointIds: number[] = [];
   for (const p of planPoints) {
@@ -69,32 +70,33 @@ export async function seedReviewPlan(knex: Knex, { studyId, setupId, geometry, i
     const inputPower = 1.5;
     const power = { inputPower, outputPower: Number((inputPower * efficiency * scatter).toPrecision(4)) };
     return [
-      row(planId, pointIds[i], ids.student, 'open_circuit', openCircuit, accuracy, deriveReading('open_circuit', openCircuit, accuracy, context)),
-      row(planId, pointIds[i], ids.student, 'direct_power', power, accuracy, deriveReading('direct_power', power, accuracy, context)),
+      row(planId, pointIds[i], ids.student, 'open_circuit', openCircuit, accuracy, deriveReading('open_circuit', openCircuit, accuracy, context), daysAgo(3)),
+      row(planId, pointIds[i], ids.student, 'direct_power', power, accuracy, deriveReading('direct_power', power, accuracy, context), daysAgo(3)),
     ];
   });
   await knex('readings').insert(rows);
 
   await knex('plan_comments').insert([
-    { plan_id: planId, point_id: null, author_id: ids.student, body: 'All fourteen points logged twice round. The jig scale is hard to read past 40 degrees.' },
-    { plan_id: planId, point_id: pointIds[WRONG_RANGE_SEQ - 1], author_id: ids.student, body: 'Point 7 read high on the scope; I did not catch why before the next point.' },
+    { plan_id: planId, point_id: null, author_id: ids.student, body: 'All fourteen points logged twice round. The jig scale is hard to read past 40 degrees.', created_at: daysAgo(2) },
+    { plan_id: planId, point_id: pointIds[WRONG_RANGE_SEQ - 1], author_id: ids.student, body: 'Point 7 read high on the scope; I did not catch why before the next point.', created_at: daysAgo(2) },
   ]);
-  const audit = (actorId: number, action: string, details: Record<string, unknown>, targetTable = 'sweep_plans', targetId = planId) => ({
-    study_id: studyId, actor_id: actorId, action, target_table: targetTable, target_id: String(targetId), details: JSON.stringify({ seeded: true, ...details }),
+  const audit = (actorId: number, action: string, details: Record<string, unknown>, at: Date) => ({
+    study_id: studyId, actor_id: actorId, action, target_table: 'sweep_plans', target_id: String(planId),
+    details: JSON.stringify({ seeded: true, ...details }), created_at: at,
   });
   await knex('audit_events').insert([
-    audit(ids.researcher, 'plan.create', { name: REVIEW_DEMO_PLAN }),
-    audit(ids.researcher, 'plan.transition', { name: REVIEW_DEMO_PLAN, from: 'draft', to: 'on_bench' }),
-    audit(ids.student, 'plan.transition', { name: REVIEW_DEMO_PLAN, from: 'on_bench', to: 'in_review' }),
+    audit(ids.researcher, 'plan.create', { name: REVIEW_DEMO_PLAN }, daysAgo(9)),
+    audit(ids.researcher, 'plan.transition', { name: REVIEW_DEMO_PLAN, from: 'draft', to: 'on_bench' }, daysAgo(8)),
+    audit(ids.student, 'plan.transition', { name: REVIEW_DEMO_PLAN, from: 'on_bench', to: 'in_review' }, daysAgo(1.9)),
   ]);
   return planId;
 }
 
-function row(planId: number, pointId: number, studentId: number, method: string, raw: object, accuracy: object, derived: object) {
+function row(planId: number, pointId: number, studentId: number, method: string, raw: object, accuracy: object, derived: object, at: Date) {
   return {
     plan_id: planId, point_id: pointId, version: 1, method, raw: JSON.stringify(raw), accuracy: JSON.stringify(accuracy),
     derived: JSON.stringify(derived), instrument: 'Bench kit B (scope, current probe, RF power meters)', calibration: 'in_date',
     temperature_c: 21, setup_notes: method === 'open_circuit' ? 'Scope probe 10:1 on the probe coil; current probe on the pad lead.' : 'Two RF power meters; 50 ohm dummy load on the probe.',
-    source: 'form', created_by: studentId,
+    source: 'form', created_by: studentId, created_at: at,
   };
 }

@@ -43,7 +43,7 @@ describe('studies data', () => {
     const padId = (await db('studies').where({ name: SEEDED.padStudy }).first('id')).id;
     expect(await statusOf(() => getStudy(outsider, padId))).toBe(404);
     const seen = await getStudy(supervisor, padId);
-    expect(seen.allowedActions).toEqual(['study.view', 'members.manage', 'comments.write', 'plan.decide']);
+    expect(seen.allowedActions).toEqual(['study.view', 'members.manage', 'comments.write', 'plan.decide', 'review.analyse']);
     expect(seen.createdBy.name).toBe('Ines Okafor');
   });
 });
