@@ -128,7 +128,10 @@ test('a supervisor returns a plan with a reason, the student corrects it, and th
   const note = studentPage.getByRole('note', { name: 'Why the plan came back' });
   await expect(note).toContainText(`Returned to the bench by ${DEMO.supervisor.name}`);
   await expect(note).toContainText(reason);
-  await expect(note.getByRole('link', { name: 'Open the logbook' })).toBeVisible();
+  // at the bench, the supervisor's comment sits with the point it is about
+  await note.getByRole('link', { name: 'Open the logbook' }).click();
+  await studentPage.getByRole('list', { name: 'Points in measurement order' }).getByRole('button', { name: new RegExp(`^#${far.seq}\\b`) }).click();
+  await expect(studentPage.getByRole('region', { name: 'Comments on this point' })).toContainText('fh looks like it was read off the wrong peak.');
   const corrected = await student.post(`${base}/readings/${slipped}/corrections`, {
     data: { method: 'split_peaks', raw: { lowPeak: FL, highPeak: upperPeak(far.predicted!.coupling * 1.01) }, reason: 'Read the upper peak again' },
   });

@@ -20,6 +20,7 @@ import { AttachmentsPanel } from './attachments-panel';
 import { CautionAcknowledgement } from './caution-acknowledgement';
 import { CsvImport } from './csv-import';
 import { formatQuantityValue } from './format-measured';
+import { PointComments } from './point-comments';
 import { PointReadings } from './point-readings';
 import { poseLabel } from './pose-label';
 import { INITIAL_CIRCUMSTANCES, ReadingForm, type BenchCircumstances } from './reading-form';
@@ -216,6 +217,7 @@ export function Logbook({ studyId, planId, viewerId, allowedActions }: LogbookPr
                     <span role="status">{saved}</span>
                   </Alert>
                 )}
+                <PointComments studyId={studyId} planId={planId} pointId={selected.id} />
                 <PointReadings
                   readings={pointReadings}
                   predicted={selected.predicted}
