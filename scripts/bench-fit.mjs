@@ -6,41 +6,16 @@
  * (src/physics/review/least-squares.ts) with every step solved again on a pool of the server's default
  * size, exactly as runFit does, and the re-prediction at every pose. Usage: node scripts/bench-fit.mjs [--runs N]
  */
-import os from 'node:os';
-import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { benchPool, geometry, plans, poses, source } from './lib/bench-helices.mjs';
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const require = createRequire(import.meta.url);
-require('./lib/register-ts.cjs');
-const plans = require(join(root, 'src/lib/plans/index.ts'));
-const { fitOneParameter } = require(join(root, 'src/physics/review/least-squares.ts'));
-const { offsetPose, searchRange } = require(join(root, 'src/lib/review/fit-models.ts'));
-const { SolverPool } = require(join(root, 'src/lib/solver-pool/solver-pool.ts'));
-const { createSourceWorker } = require(join(root, 'src/lib/solver-pool/source-worker.ts'));
+const { fitOneParameter } = source('src/physics/review/least-squares.ts');
+const { offsetPose, searchRange } = source('src/lib/review/fit-models.ts');
 
 const runsArg = process.argv.indexOf('--runs');
 const RUNS = runsArg > 0 ? Number(process.argv[runsArg + 1]) : 3;
 const TILT_ERROR_DEG = 2;
 const TARGET_MS = 30_000;
-
-const helix = { kind: 'helix', radius: 0.05, turns: 20, length: 0.04, wireDiameter: 0.001 };
-const geometry = {
-  transmitter: helix, receiver: helix, operatorPoint: null,
-  circuit: { frequency: 100000, topology: 'SS', sourceVoltage: 10, sourceResistance: 0.5, loadResistance: 10 },
-};
-const layout = {
-  axes: [
-    { quantity: 'tiltDeg', displayUnit: 'deg', mode: 'range', start: 0, stop: 90, step: 4.5 },
-    { quantity: 'distance', displayUnit: 'cm', mode: 'range', start: 0.12, stop: 0.32, step: 0.01 },
-  ],
-  repeats: 1, referenceEvery: null, orderMode: 'serpentine', shuffleSeed: null,
-};
-const points = plans.buildPlanPoints(layout, { distance: 0.12, lateralOffset: 0, tiltDeg: 0 });
-const poses = [...new Map(points.map((p) => [plans.poseKey(p.pose), p.pose])).values()];
-const size = Math.max(1, os.availableParallelism() - 1);
-const pool = new SolverPool({ size, queueLimit: 32, timeoutMs: 60_000, createWorker: () => createSourceWorker(join(root, 'src/lib/solver-pool/solve-worker.ts')) });
+const { pool, size } = benchPool();
 
 const couplingAt = async (offset, at = poses) =>
   (await plans.solvePoses(pool, geometry, at.map((pose) => offsetPose('tilt_offset', pose, offset)))).map((p) => p.coupling);

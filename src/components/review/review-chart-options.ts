@@ -1,6 +1,7 @@
 import type { ChartOption } from '@/components/plans/echart';
 import { METHOD_SPECS } from '@/physics/measurement/methods';
 import type { ReviewQuantity } from '@/lib/review/types';
+import { errorBarSeries, polygonSeries } from './chart-shapes';
 import { formatAxisTick, formatPercentValue, formatReviewMeasured, formatReviewValue, formatSignedPercent, quantityAxisName } from './format-review';
 import { POINT_KINDS, type AxisChartData, type ParityData, type ParityPoint, type PointKind, type ResidualData, type ResidualPoint } from './review-chart-data';
 
@@ -25,34 +26,10 @@ const BASE = { animation: false, textStyle: { fontFamily: 'Inter, ui-sans-serif,
 /** Axes at the plot's edges, not through zero, so they never cross the data or the zero line. */
 const EDGE = { axisLine: { onZero: false } };
 
-type Api = { value: (dim: number) => number; coord: (point: [number, number]) => [number, number] };
-type RenderParams = { dataIndex: number };
 
 /** Bands are see-through, so the grid and the narrower band show through the wider one. */
 const BAND_OPACITY = 0.7;
 
-/** A filled polygon in data coordinates, for bands; drawn behind the points and not interactive. */
-function polygonSeries(name: string, polygon: [number, number][], fill: string): Record<string, unknown> {
-  const xs = polygon.map((p) => p[0]);
-  const ys = polygon.map((p) => p[1]);
-  return {
-    type: 'custom',
-    name,
-    silent: true,
-    // the band runs to the range's corners; what lies outside the plot area is cut off
-    clip: true,
-    z: 0,
-    itemStyle: { color: fill, opacity: BAND_OPACITY },
-    // the data only widens the axes to the polygon; the drawing uses the corners themselves
-    data: [[Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)]],
-    encode: { x: [0, 2], y: [1, 3] },
-    renderItem: (_params: RenderParams, api: Api) => ({
-      type: 'polygon',
-      shape: { points: polygon.map((p) => api.coord(p)) },
-      style: { fill, opacity: BAND_OPACITY },
-    }),
-  };
-}
 
 const methodLabel = (m: ParityPoint['method']) => METHOD_SPECS[m]?.label ?? m;
 
@@ -72,29 +49,7 @@ export function axisChartOption(data: AxisChartData, quantity: ReviewQuantity, x
         z: 4,
         data: s.measured.map((m) => ({ value: [m.x, m.mean], u: m.uncertainty, n: m.n, seqs: m.seqs })),
       },
-      {
-        type: 'custom',
-        name: measuredName,
-        color: colour,
-        silent: true,
-        z: 3,
-        data: s.measured.map((m) => [m.x, m.mean - m.uncertainty, m.mean + m.uncertainty]),
-        encode: { x: 0, y: [1, 2] },
-        renderItem: (_params: RenderParams, api: Api) => {
-          const top = api.coord([api.value(0), api.value(2)]);
-          const bottom = api.coord([api.value(0), api.value(1)]);
-          const cap = 4;
-          const style = { stroke: colour, lineWidth: 1.5 };
-          return {
-            type: 'group',
-            children: [
-              { type: 'line', shape: { x1: top[0], y1: top[1], x2: bottom[0], y2: bottom[1] }, style },
-              { type: 'line', shape: { x1: top[0] - cap, y1: top[1], x2: top[0] + cap, y2: top[1] }, style },
-              { type: 'line', shape: { x1: bottom[0] - cap, y1: bottom[1], x2: bottom[0] + cap, y2: bottom[1] }, style },
-            ],
-          };
-        },
-      },
+      errorBarSeries(measuredName, colour, s.measured.map((m) => [m.x, m.mean - m.uncertainty, m.mean + m.uncertainty]), { cap: 4, lineWidth: 1.5 }),
     ];
     if (s.refit.length > 0) {
       out.push({ type: 'line', name: `Fit${suffix}`, data: s.refit, color: colour, showSymbol: false, lineStyle: { width: 1.5, type: 'dashed' } });
@@ -150,7 +105,7 @@ export function parityOption(data: ParityData, quantity: ReviewQuantity): ChartO
     xAxis: { ...EDGE, type: 'value', name: quantityAxisName(quantity, 'Predicted'), nameLocation: 'middle', nameGap: 32, min: lo, max: hi, interval: data.step, axisLabel: { formatter: tick } },
     yAxis: { ...EDGE, type: 'value', name: quantityAxisName(quantity, 'Measured'), min: lo, max: hi, interval: data.step, axisLabel: { formatter: tick } },
     series: [
-      ...data.bands.map((b) => polygonSeries(`±${Math.round(b.fraction * 100)} %`, b.polygon, b.fraction > 0.05 ? FLUX_100 : FLUX_200)),
+      ...data.bands.map((b) => polygonSeries(`±${Math.round(b.fraction * 100)} %`, b.polygon, b.fraction > 0.05 ? FLUX_100 : FLUX_200, BAND_OPACITY)),
       { type: 'line', name: 'Measured = predicted', data: [[lo, lo], [hi, hi]], color: INK_700, showSymbol: false, silent: true, lineStyle: { width: 1 } },
       ...kindSeries(data.points, (p) => [p.predicted, p.measured], tip),
     ],
@@ -171,7 +126,7 @@ export function residualOption(data: ResidualData, xTitle: string): ChartOption 
     xAxis: { ...EDGE, type: 'value', name: xTitle, nameLocation: 'middle', nameGap: 32, min: lo, max: hi, axisLabel: { showMinLabel: false, showMaxLabel: false } },
     yAxis: { ...EDGE, type: 'value', name: 'Relative error [%]', scale: true, axisLabel: { formatter: (v: number) => `${Number(v.toPrecision(4))} %` } },
     series: [
-      polygonSeries(`Tolerance ±${formatPercentValue(t / 100)}`, [[lo, -t], [hi, -t], [hi, t], [lo, t]], FLUX_100),
+      polygonSeries(`Tolerance ±${formatPercentValue(t / 100)}`, [[lo, -t], [hi, -t], [hi, t], [lo, t]], FLUX_100, BAND_OPACITY),
       { type: 'line', name: 'Zero', data: [[lo, 0], [hi, 0]], color: INK_700, showSymbol: false, silent: true, lineStyle: { width: 1 } },
       ...kindSeries(data.points, (p) => [p.x, p.percent], tip),
     ],

@@ -1,4 +1,5 @@
 import 'server-only';
+import type { Knex } from 'knex';
 import Papa from 'papaparse';
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
@@ -31,11 +32,9 @@ interface PointRow {
   solver_version: string | null;
 }
 
-/** The plan's points in measurement order, with the pose and the published predictions. */
-export async function listPlanPoints(viewer: SessionUser, studyId: number, planId: number): Promise<PlanPoint[]> {
-  await requireStudyAccess(viewer, studyId, 'study.view');
-  await requirePlanInStudy(db, studyId, planId);
-  const rows: PointRow[] = await db('sweep_points').where({ plan_id: planId }).orderBy('seq')
+/** The plan's points in measurement order, read inside the caller's access check (or transaction). */
+export async function planPointRows(trx: Knex | Knex.Transaction, planId: number): Promise<PlanPoint[]> {
+  const rows: PointRow[] = await trx('sweep_points').where({ plan_id: planId }).orderBy('seq')
     .select('id', 'seq', 'repeat_index', 'is_reference', 'pose', 'predicted', 'solver_version');
   return rows.map((row) => ({
     id: Number(row.id),
@@ -46,6 +45,13 @@ export async function listPlanPoints(viewer: SessionUser, studyId: number, planI
     predicted: row.predicted === null ? null : fromJsonColumn<PointPrediction>(row.predicted),
     solverVersion: row.solver_version,
   }));
+}
+
+/** The plan's points in measurement order, with the pose and the published predictions. */
+export async function listPlanPoints(viewer: SessionUser, studyId: number, planId: number): Promise<PlanPoint[]> {
+  await requireStudyAccess(viewer, studyId, 'study.view');
+  await requirePlanInStudy(db, studyId, planId);
+  return planPointRows(db, planId);
 }
 
 /**

@@ -5,8 +5,6 @@ import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
 import { notFound } from '../http/errors';
 import type { PlanAxis } from '../plans/axes';
-import type { PlanPose } from '../plans/points';
-import type { PointPrediction } from '../plans/prediction';
 import type { PlanState } from '../plans/states';
 import { assembleReview, type ReviewPoint, type ReviewReading } from '../review/assemble';
 import type { AgreementSummary, FitResult, OutlierMark, PlanDecision, PlanReview, ReviewQuantity } from '../review/types';
@@ -14,6 +12,7 @@ import type { MeasurementMethod } from '../../physics/measurement/methods';
 import type { Derivation } from '../../physics/measurement/types';
 import { latestFit } from './plan-fits';
 import { fromJsonColumn } from './json-column';
+import { planPointRows } from './plan-points';
 
 /**
  * Loading a plan's review: points, current readings, marks, the latest fit and the decisions, then
@@ -38,18 +37,8 @@ export async function lockablePlanHead(trx: Knex | Knex.Transaction, studyId: nu
   return row;
 }
 
-export async function reviewPoints(trx: Knex | Knex.Transaction, planId: number): Promise<ReviewPoint[]> {
-  const rows: { id: number | string; seq: number; repeat_index: number; is_reference: number | boolean; pose: unknown; predicted: unknown }[] =
-    await trx('sweep_points').where({ plan_id: planId }).orderBy('seq').select('id', 'seq', 'repeat_index', 'is_reference', 'pose', 'predicted');
-  return rows.map((row) => ({
-    id: Number(row.id),
-    seq: row.seq,
-    repeatIndex: row.repeat_index,
-    isReference: Boolean(row.is_reference),
-    pose: fromJsonColumn<PlanPose>(row.pose),
-    predicted: row.predicted === null ? null : fromJsonColumn<PointPrediction>(row.predicted),
-  }));
-}
+/** The plan's points as the review reads them. */
+export const reviewPoints = (trx: Knex | Knex.Transaction, planId: number): Promise<ReviewPoint[]> => planPointRows(trx, planId);
 
 /** The current version of every reading of the plan (no later version of the same point and method). */
 export async function currentReadings(trx: Knex | Knex.Transaction, planId: number): Promise<ReviewReading[]> {

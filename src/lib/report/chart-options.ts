@@ -1,4 +1,5 @@
 import type { EChartsCoreOption } from 'echarts';
+import { errorBarSeries, polygonSeries } from '@/components/review/chart-shapes';
 import { formatAxisTick, formatPercentValue, quantityAxisName } from '@/components/review/format-review';
 import { POINT_KINDS, type AxisChartData, type ParityData, type PointKind, type ResidualData } from '@/components/review/review-chart-data';
 import { OUTLIER_SIGMA } from '../../physics/review/outliers';
@@ -34,8 +35,6 @@ const BASE = { animation: false, textStyle: { fontFamily: FONT.regular, fontSize
 /** Axes whose ends are the data's range plus padding: the ends are not round numbers, so not labelled. */
 const PADDED_AXIS_LABEL = { color: INK_500, fontSize: FONT_PX - 1, showMinLabel: false, showMaxLabel: false };
 
-type Api = { value: (dim: number) => number; coord: (point: [number, number]) => [number, number] };
-
 /** Rows the legend needs at this width: each entry is its text plus the symbol and a gap. */
 function legendRows(names: readonly string[], widthPx: number): number {
   const usable = widthPx - 20;
@@ -57,47 +56,6 @@ function frame(legendNames: string[], widthPx: number) {
   return {
     legend: { top: 0, left: 'center', data: legendNames, itemWidth: 18, itemHeight: 10, itemGap: 16, textStyle: { fontSize: FONT_PX } },
     grid: { left: 64, right: 16, top, bottom: 44 },
-  };
-}
-
-/** A filled polygon in data coordinates, for bands, drawn behind the points. */
-function polygonSeries(name: string, polygon: [number, number][], fill: string): Record<string, unknown> {
-  const xs = polygon.map((p) => p[0]);
-  const ys = polygon.map((p) => p[1]);
-  return {
-    type: 'custom',
-    name,
-    z: 0,
-    itemStyle: { color: fill },
-    data: [[Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)]],
-    encode: { x: [0, 2], y: [1, 3] },
-    renderItem: (_params: unknown, api: Api) => ({ type: 'polygon', shape: { points: polygon.map((p) => api.coord(p)) }, style: { fill } }),
-  };
-}
-
-/** ±1 u bars with short caps. */
-function errorBarSeries(name: string, colour: string, bars: [number, number, number][]): Record<string, unknown> {
-  return {
-    type: 'custom',
-    name,
-    z: 3,
-    itemStyle: { color: colour },
-    data: bars,
-    encode: { x: 0, y: [1, 2] },
-    renderItem: (_params: unknown, api: Api) => {
-      const top = api.coord([api.value(0), api.value(2)]);
-      const bottom = api.coord([api.value(0), api.value(1)]);
-      const cap = 3;
-      const style = { stroke: colour, lineWidth: 1 };
-      return {
-        type: 'group',
-        children: [
-          { type: 'line', shape: { x1: top[0], y1: top[1], x2: bottom[0], y2: bottom[1] }, style },
-          { type: 'line', shape: { x1: top[0] - cap, y1: top[1], x2: top[0] + cap, y2: top[1] }, style },
-          { type: 'line', shape: { x1: bottom[0] - cap, y1: bottom[1], x2: bottom[0] + cap, y2: bottom[1] }, style },
-        ],
-      };
-    },
   };
 }
 
@@ -126,7 +84,7 @@ export function axisChartOption(data: AxisChartData, quantity: ReviewQuantity, x
     const out: Record<string, unknown>[] = [
       { type: 'line', name: name('Predicted'), data: s.predicted, color: colour, showSymbol: s.predicted.length === 1, symbol: 'emptyCircle', lineStyle: { width: 1.5 } },
       { type: 'scatter', name: name('Measured ± 1 u'), data: s.measured.map((m) => [m.x, m.mean]), color: colour, symbolSize: 6, z: 4 },
-      errorBarSeries(name('Measured ± 1 u'), colour, s.measured.map((m) => [m.x, m.mean - m.uncertainty, m.mean + m.uncertainty])),
+      errorBarSeries(name('Measured ± 1 u'), colour, s.measured.map((m) => [m.x, m.mean - m.uncertainty, m.mean + m.uncertainty]), { cap: 3, lineWidth: 1 }),
     ];
     if (s.refit.length > 0) out.push({ type: 'line', name: name('Fit'), data: s.refit, color: colour, showSymbol: false, lineStyle: { width: 1.2, type: 'dashed' } });
     return out;

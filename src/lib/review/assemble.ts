@@ -13,21 +13,14 @@ import { compareToPrediction, errorMetrics, meanOfObservations } from '../../phy
 import { isAutoOutlier } from '../../physics/review/outliers';
 import type { MeasurementMethod } from '../../physics/measurement/methods';
 import type { Derivation } from '../../physics/measurement/types';
-import type { PlanPose } from '../plans/points';
-import type { PointPrediction } from '../plans/prediction';
+import type { PlanPoint } from '../data/plan-points';
 import { poseKey } from '../plans/solve-job';
 import type {
   AgreementSummary, FitResult, OutlierMark, PlanDecision, PlanReview, ReviewObservation, ReviewPose, ReviewQuantity,
 } from './types';
 
-export interface ReviewPoint {
-  id: number;
-  seq: number;
-  repeatIndex: number;
-  isReference: boolean;
-  pose: PlanPose;
-  predicted: PointPrediction | null;
-}
+/** A plan point as the review needs it (the run sheet's point; its solver version is not needed). */
+export type ReviewPoint = Omit<PlanPoint, 'solverVersion'>;
 
 export interface ReviewReading {
   id: number;
