@@ -7,7 +7,8 @@ import { FitInputError, fitOneParameter } from '../../physics/review/least-squar
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
-import { HttpError, unprocessable } from '../http/errors';
+import { conflict, HttpError, unprocessable } from '../http/errors';
+import type { PlanState } from '../plans/states';
 import type { PlanPose } from '../plans/points';
 import type { PointPrediction } from '../plans/prediction';
 import { poseKey, type PlanSetupGeometry } from '../plans/solve-job';
@@ -93,6 +94,11 @@ function evaluationFailure(model: FitModel, error: unknown): HttpError {
   return unprocessable(`The ${FIT_MODEL_INFO[model].label.toLowerCase()} could not be fitted: the solver could not evaluate the model across the search range. Set aside points that sit near a limit of the setup, or choose another parameter.`, [{ path: 'model', message: 'Choose another parameter or set points aside.' }]);
 }
 
+/** An accepted plan's review is closed: its figures stay as they were accepted. */
+function refuseClosedReview(state: PlanState): void {
+  if (state === 'accepted') throw conflict('This plan is accepted: its review is closed.');
+}
+
 export interface FitInput {
   model: FitModel;
   quantity: ReviewQuantity;
@@ -106,6 +112,7 @@ export async function runFit(actor: SessionUser, studyId: number, planId: number
     throw unprocessable('Some fields need attention.', [{ path: 'model', message: `${info.label} explains ${info.quantities.map((q) => REVIEW_QUANTITY_LABELS[q].label.toLowerCase()).join(' or ')}, not ${REVIEW_QUANTITY_LABELS[input.quantity].label.toLowerCase()}.` }]);
   }
   const head = await lockablePlanHead(db, studyId, planId);
+  refuseClosedReview(head.state);
   const review = await reviewWithin(db, head, input.quantity, null);
   const predictedByKey = new Map<string, PointPrediction>();
   for (const point of await reviewPoints(db, planId)) if (point.predicted) predictedByKey.set(poseKey(point.pose), point.predicted);
@@ -142,7 +149,7 @@ export async function runFit(actor: SessionUser, studyId: number, planId: number
 
   const id = await db.transaction(async (trx) => {
     await requireStudyAccess(actor, studyId, 'review.analyse', trx);
-    await lockablePlanHead(trx, studyId, planId, 'share');
+    refuseClosedReview((await lockablePlanHead(trx, studyId, planId, 'share')).state);
     const [inserted] = await trx('plan_fits').insert({
       plan_id: planId, model: input.model, quantity: input.quantity, value: fit.value, uncertainty: fit.uncertainty,
       poses_used: used.length, chi_square: fit.chiSquare, reduced_chi_square: fit.reducedChiSquare, rms_relative_after: after.rmsRelative,

@@ -4,6 +4,7 @@ import { transitionPlan } from '../../../src/lib/data/plans';
 import { loadGeometry, setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
 import type { PlanPoint } from '../../../src/lib/data/plan-points';
 import { getPlanReview } from '../../../src/lib/data/review';
+import { deliverPending } from '../../../src/lib/mail/outbox';
 import { markOutlier, setReviewTolerance, unmarkOutlier } from '../../../src/lib/data/review-analysis';
 import { acknowledgeCautions, createReading } from '../../../src/lib/data/readings';
 import { pointPrediction, pointSolveJob } from '../../../src/lib/plans/solve-job';
@@ -168,6 +169,7 @@ describe('plan review: agreement, outliers, fits, comments and decisions', () =>
     expect((await db('sweep_plans').where({ id: planId }).first('state')).state).toBe('in_review');
 
     await transitionPlan(supervisor, padId, planId, { to: 'on_bench', reason: 'Re-zero the tilt jig and repeat 45 degrees.' });
+    await deliverPending({ limit: 100 }); // jest runs no outbox dispatcher
     const returned = (await messagesTo(student.email)).find((m) => m.subject.includes('"Review drill" was returned'))!;
     expect(returned.subject).toContain('returned');
     expect(returned.text).toContain('Re-zero the tilt jig');
@@ -182,6 +184,7 @@ describe('plan review: agreement, outliers, fits, comments and decisions', () =>
     expect(decisions[1].summary).toMatchObject({ tolerance: 0.05, setAside: 1 });
     // an accepted plan's review is closed
     expect(await statusOf(() => setReviewTolerance(supervisor, padId, planId, 0.1))).toBe(409);
+    expect(await statusOf(() => runFit(supervisor, padId, planId, { model: 'tilt_offset', quantity: 'coupling' }))).toBe(409);
     expect(await statusOf(() => unmarkOutlier(supervisor, padId, planId, points.find((p) => p.seq === SLIPPED_SEQ)!.id))).toBe(409);
   });
 });
