@@ -117,7 +117,7 @@ export function acquireLock(inst) {
       if (e.code !== 'EEXIST') throw e;
     }
     const pid = readPidFile(file);
-    if (pid && pid !== process.pid && isAlive(pid) && /scripts\/(start|test|bench-import)\.mjs/.test(processCmdline(pid))) {
+    if (pid && pid !== process.pid && isAlive(pid) && /scripts\/(start|test|bench-import|backup|restore)\.mjs/.test(processCmdline(pid))) {
       return pid;
     }
     removeFile(file);
