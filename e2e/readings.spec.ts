@@ -113,7 +113,8 @@ test('a correction becomes version 2 with its reason, and version 1 stays in the
 });
 
 test('sending the plan for review notifies the supervisor; supervisors see the logbook read-only', async ({ page, playwright, browser }) => {
-  const { studyId, planId } = await createBenchPlan(playwright, `Review mail ${Date.now()}`, [0.07]);
+  const planName = `Review mail ${Date.now()}`;
+  const { studyId, planId } = await createBenchPlan(playwright, planName, [0.07]);
   await signIn(page, DEMO.student);
   await openLogbook(page, studyId, planId);
 
@@ -135,7 +136,7 @@ test('sending the plan for review notifies the supervisor; supervisors see the l
   await expect(page.getByText('in review', { exact: true })).toBeVisible();
   await expect(page.getByRole('form', { name: 'Log a reading' })).toHaveCount(0);
 
-  const mail = await waitForMessageTo(DEMO.supervisor.email);
+  const mail = await waitForMessageTo(DEMO.supervisor.email, { about: planName });
   expect(Date.parse(mail.date)).toBeGreaterThanOrEqual(before - 60_000);
   expect(mail.subject).toContain('is ready for review');
   expect(mail.text).toContain(`/studies/${studyId}/plans/${planId}`);

@@ -41,10 +41,7 @@ async function transition(api: APIRequestContext, base: string, data: Record<str
 }
 
 /** The newest message to `address` whose subject names `planName` (other tests mail the same people). */
-async function mailAbout(address: string, planName: string): Promise<InboxMessage> {
-  await expect.poll(async () => (await waitForMessageTo(address, 20_000)).subject, { timeout: 20_000 }).toContain(planName);
-  return waitForMessageTo(address);
-}
+const mailAbout = (address: string, planName: string): Promise<InboxMessage> => waitForMessageTo(address, { about: planName, timeoutMs: 20_000 });
 
 async function openReview(page: Page, studyId: number, planId: number): Promise<void> {
   await page.goto(`/studies/${studyId}/plans/${planId}/review`);

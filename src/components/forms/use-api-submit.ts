@@ -7,7 +7,7 @@ import { applyServerErrors } from './apply-server-errors';
 /**
  * The submit half every API form shares: clears the previous outcome, runs the request, and on
  * failure puts field issues beside their fields (applyServerErrors) and keeps the top-of-form message.
- * `action` may return a confirmation to show (e.g. "Invitation sent to ..."), or nothing.
+ * `action` may return a confirmation to show (e.g. "Invitation saved; the e-mail to ... is on its way."), or nothing.
  */
 export function useApiSubmit<T extends FieldValues>(setError: UseFormSetError<T>, fieldFor: (path: string) => Path<T> | undefined) {
   const [formError, setFormError] = useState<string | null>(null);

@@ -40,7 +40,7 @@ export function InviteForm({ studyId }: { studyId: number }) {
       await fetchJson<{ invitation: PendingInvitation }>(`/api/studies/${studyId}/invitations`, { method: 'POST', body: values });
       await mutate(studyInvitationsKey(studyId));
       reset({ email: '', role: values.role });
-      return `Invitation sent to ${values.email}.`;
+      return `Invitation saved; the e-mail to ${values.email} is on its way.`;
     });
   }
 

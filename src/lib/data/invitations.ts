@@ -15,7 +15,7 @@ import {
   looksLikeInvitationToken,
   type InvitationStatus,
 } from '../invitations/token';
-import { sendMail } from '../mail/transport';
+import { enqueueMail, kickOutbox } from '../mail/outbox';
 import { invitationMail } from '../mail/templates';
 import { recordAudit } from './audit';
 
@@ -64,16 +64,22 @@ export async function listPendingInvitations(viewer: SessionUser, studyId: numbe
   }));
 }
 
+/** A new invitation; its e-mail is queued, not yet sent, when the invitation is returned. */
+export interface CreatedInvitation extends PendingInvitation {
+  mailStatus: 'queued';
+}
+
 /**
- * Invites an address to a study and e-mails the single-use link. The row and the e-mail succeed or
- * fail together: if the mail server refuses, the transaction rolls back and nothing is stored.
- * Inviting the same address again replaces its earlier pending invitation.
+ * Invites an address to a study and e-mails the single-use link. The e-mail joins the mail outbox in
+ * the same transaction as the row, so a stored invitation always has its e-mail on the way, and a
+ * mail relay that is down only delays it (the outbox retries). Inviting the same address again
+ * replaces its earlier pending invitation.
  */
 export async function createInvitation(
   actor: SessionUser,
   studyId: number,
   input: { email: string; role: StudyRole },
-): Promise<PendingInvitation> {
+): Promise<CreatedInvitation> {
   const token = generateInvitationToken();
   const expiresAt = invitationExpiry(new Date(), serverEnv().INVITATION_TTL_HOURS);
 
@@ -111,14 +117,14 @@ export async function createInvitation(
       details: { email: input.email, role: input.role },
     });
     const link = `${serverEnv().APP_URL}/invite/${token}`;
-    try {
-      await sendMail({ to: input.email, ...invitationMail({ studyName: study.name, inviterName: actor.name, role: input.role, link, expiresAt }) });
-    } catch (error) {
-      console.error('Invitation e-mail failed', error);
-      throw new HttpError(503, 'The invitation e-mail could not be sent, so no invitation was saved. Try again in a moment.');
-    }
+    await enqueueMail(
+      trx,
+      { to: input.email, ...invitationMail({ studyName: study.name, inviterName: actor.name, role: input.role, link, expiresAt }) },
+      { kind: 'invitation', studyId },
+    );
     return invitationId as number;
   });
+  kickOutbox();
 
   return {
     id,
@@ -127,6 +133,7 @@ export async function createInvitation(
     invitedBy: actor.name,
     expiresAt: expiresAt.toISOString(),
     createdAt: new Date().toISOString(),
+    mailStatus: 'queued',
   };
 }
 

@@ -2,9 +2,9 @@ import 'server-only';
 import type { Knex } from 'knex';
 import type { SessionUser } from '../auth/session-user';
 import { serverEnv } from '../env';
-import { HttpError, unprocessable } from '../http/errors';
+import { unprocessable } from '../http/errors';
+import { enqueueMail } from '../mail/outbox';
 import { planDecisionMail } from '../mail/templates';
-import { sendMail } from '../mail/transport';
 import { formatPercent } from '../review/format';
 import type { AgreementSummary, ReviewDecision } from '../review/types';
 import type { PlanTransitionInput } from '../validations/plan';
@@ -14,7 +14,8 @@ import { lockablePlanHead, reviewWithin } from './review';
 /**
  * A supervisor's decision on a plan in review, inside the transition's transaction: the decision row
  * (who, when, why, and the agreement they decided on) and the e-mail to the study's researchers and
- * students. When the e-mail cannot be sent nothing is stored (503), so nobody misses a decision.
+ * students, queued in the mail outbox. Both commit together, so nobody misses a decision, and a mail
+ * relay that is down only delays the e-mail; the caller kicks the outbox after the commit.
  */
 
 /** One line for the e-mail: the figure a reader looks for first. */
@@ -52,10 +53,5 @@ export async function recordDecision(
     studyName: study.name, planName, reviewerName: actor.name, decision, reason,
     link: `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}/review`, agreement: agreementLine(summary),
   });
-  try {
-    for (const recipient of recipients) await sendMail({ to: recipient.email, ...mail });
-  } catch (error) {
-    console.error('Decision notification failed', error);
-    throw new HttpError(503, 'The researchers and students could not be notified, so the decision was not recorded. Try again in a moment.');
-  }
+  for (const recipient of recipients) await enqueueMail(trx, { to: recipient.email, ...mail }, { kind: 'plan.decision', studyId });
 }

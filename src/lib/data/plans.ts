@@ -3,11 +3,11 @@ import type { Knex } from 'knex';
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
-import { conflict, HttpError, notFound, unprocessable } from '../http/errors';
+import { conflict, notFound, unprocessable } from '../http/errors';
 import { serverEnv } from '../env';
 import { recordDecision } from './plan-decisions';
+import { enqueueMail, kickOutbox } from '../mail/outbox';
 import { planSubmittedMail } from '../mail/templates';
-import { sendMail } from '../mail/transport';
 import type { PlanAxis } from '../plans/axes';
 import type { OrderMode } from '../plans/order';
 import { buildPlanPoints, estimatedMinutes, type BasePose } from '../plans/points';
@@ -250,7 +250,7 @@ export async function deletePlan(actor: SessionUser, studyId: number, planId: nu
  * 403 when the actor's role may not take it. The reason goes to the audit trail.
  */
 export async function transitionPlan(actor: SessionUser, studyId: number, planId: number, input: PlanTransitionInput): Promise<Plan> {
-  await db.transaction(async (trx) => {
+  const mailQueued = await db.transaction(async (trx) => {
     await requireStudyAccess(actor, studyId, 'study.view', trx);
     const row = await lockPlan(trx, studyId, planId);
     const transition = findTransition(row.state, input.to);
@@ -265,14 +265,16 @@ export async function transitionPlan(actor: SessionUser, studyId: number, planId
     });
     if (input.to === 'in_review') await notifyReviewers(trx, actor, studyId, planId, row.name);
     if (row.state === 'in_review') await recordDecision(trx, actor, studyId, planId, row.name, input);
+    return input.to === 'in_review' || row.state === 'in_review';
   });
+  if (mailQueued) kickOutbox();
   return getPlan(actor, studyId, planId);
 }
 
 /**
  * A plan goes to review with at least one reading, and the study's supervisors hear of it. The mail
- * is sent inside the transaction: when it cannot be sent the plan stays on the bench (503), so no
- * supervisor misses a submission.
+ * joins the outbox inside the transaction, so it is stored exactly when the plan moves and no
+ * supervisor misses a submission; a mail relay that is down only delays it.
  */
 async function notifyReviewers(trx: Knex.Transaction, actor: SessionUser, studyId: number, planId: number, planName: string): Promise<void> {
   const logged = await trx('readings').where({ plan_id: planId }).countDistinct({ n: 'point_id' }).first();
@@ -286,16 +288,9 @@ async function notifyReviewers(trx: Knex.Transaction, actor: SessionUser, studyI
   const study = await trx('studies').where({ id: studyId }).first('name');
   const link = `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}/review`;
   const pointCount = Number((await trx('sweep_points').where({ plan_id: planId }).count({ n: '*' }).first())?.n ?? 0);
-  try {
-    for (const supervisor of supervisors) {
-      await sendMail({
-        to: supervisor.email,
-        ...planSubmittedMail({ studyName: study.name, planName, submitterName: actor.name, link, pointsLogged, pointCount }),
-      });
-    }
-  } catch (error) {
-    console.error('Review notification failed', error);
-    throw new HttpError(503, 'The supervisors could not be notified, so the plan stays on the bench. Try again in a moment.');
+  const mail = planSubmittedMail({ studyName: study.name, planName, submitterName: actor.name, link, pointsLogged, pointCount });
+  for (const supervisor of supervisors) {
+    await enqueueMail(trx, { to: supervisor.email, ...mail }, { kind: 'plan.submitted', studyId });
   }
 }
 
