@@ -35,9 +35,42 @@ export function errorResponse(error: unknown): Response {
 /** Largest JSON body a route reads unless it asks for another limit. */
 export const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
 
+/** A UTF-16 surrogate without its partner: JSON text may write one ("\ud800"), but no UTF-8 text holds it. */
+const LONE_SURROGATE = /\p{Cs}/u;
+
 /**
- * Reads and validates a JSON body; malformed JSON and schema failures become 422 with field paths,
- * and a body over `maxBytes` is refused with 413 before it is parsed.
+ * Paths of the keys and texts in a parsed body that hold a lone surrogate. Such text cannot be stored
+ * as it was sent (MariaDB refuses it in JSON columns, such as the audit trail's), so it is refused here.
+ * Walks with its own stack and parent links: a body nested many thousands deep must not overflow.
+ */
+function loneSurrogatePaths(body: unknown, limit = 20): string[] {
+  type Node = { key: PropertyKey; parent: Node | null } | null;
+  const pathOf = (node: Node): string => {
+    const keys: PropertyKey[] = [];
+    for (let n = node; n; n = n.parent) keys.push(n.key);
+    return issuePath(keys.reverse());
+  };
+  const found: string[] = [];
+  const stack: [unknown, Node][] = [[body, null]];
+  while (stack.length > 0 && found.length < limit) {
+    const [value, node] = stack.pop()!;
+    if (typeof value === 'string') {
+      if (LONE_SURROGATE.test(value)) found.push(pathOf(node));
+    } else if (value !== null && typeof value === 'object') {
+      const isArray = Array.isArray(value);
+      for (const [key, child] of Object.entries(value)) {
+        const childNode = { key: isArray ? Number(key) : key, parent: node };
+        if (LONE_SURROGATE.test(key)) found.push(pathOf(childNode));
+        stack.push([child, childNode]);
+      }
+    }
+  }
+  return found;
+}
+
+/**
+ * Reads and validates a JSON body; malformed JSON, text with a lone surrogate and schema failures
+ * become 422 with field paths, and a body over `maxBytes` is refused with 413 before it is parsed.
  */
 export async function parseJsonBody<T>(request: Request, schema: ZodType<T>, maxBytes = DEFAULT_MAX_BODY_BYTES): Promise<T> {
   const text = await readBodyText(request, maxBytes);
@@ -46,6 +79,10 @@ export async function parseJsonBody<T>(request: Request, schema: ZodType<T>, max
     raw = JSON.parse(text);
   } catch {
     throw unprocessable('The request body is not valid JSON.', [{ path: '(body)', message: 'Expected a JSON object.' }]);
+  }
+  const broken = loneSurrogatePaths(raw);
+  if (broken.length > 0) {
+    throw unprocessable('Some text holds a broken character.', broken.map((path) => ({ path, message: 'This text holds half of a character (a lone surrogate); type it again.' })));
   }
   return schema.parse(raw);
 }
