@@ -285,7 +285,7 @@ async function makeFixtures(api: Contexts): Promise<Fixtures> {
     await post(api[firstLogger], `${base}/plans/${planId}/transition`, { to: 'in_review' }, 200, 'send a plan for review');
   });
 
-  const invitationToken = inviteLinkIn(await waitForMessageTo(tokenAddress, 30_000)).split('/invite/')[1];
+  const invitationToken = inviteLinkIn(await waitForMessageTo(tokenAddress, { timeoutMs: 30_000 })).split('/invite/')[1];
 
   return {
     tag, studyId, otherStudyId, userIds, invitationToken, invitationsToRevoke: byCaller(managers, invitationsToRevoke), account: account.id,
