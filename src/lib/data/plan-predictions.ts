@@ -46,10 +46,11 @@ export function planPredictionRun(planId: number): Promise<void> {
 }
 
 /** Marks a new run in the caller's transaction (which changed the points); returns its id. */
-export async function beginPredictionRun(trx: Knex.Transaction, planId: number): Promise<string> {
+export async function beginPredictionRun(trx: Knex.Transaction, planId: number, { fresh = false }: { fresh?: boolean } = {}): Promise<string> {
   const runId = randomUUID();
   const [{ total }] = await trx('sweep_points').where({ plan_id: planId }).count({ total: '*' });
-  await trx('sweep_points').where({ plan_id: planId }).update({ pending_predicted: null });
+  // points just inserted hold no pending values (and an UPDATE would lock the index's end: see writePoints)
+  if (!fresh) await trx('sweep_points').where({ plan_id: planId }).update({ pending_predicted: null });
   await trx('sweep_plans').where({ id: planId }).update({
     prediction_status: 'running', prediction_progress: 0, prediction_total: Number(total), prediction_error: null, prediction_run_id: runId,
   });

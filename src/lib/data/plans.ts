@@ -15,6 +15,7 @@ import type { PredictionStatus } from '../plans/prediction';
 import { findTransition, PLAN_STATE_LABELS, type PlanState } from '../plans/states';
 import { planCreateSchema, type PlanCreate, type PlanTransitionInput, type PlanUpdate } from '../validations/plan';
 import { recordAudit } from './audit';
+import { retryOnDeadlock } from '../db-retry';
 import { fromJsonColumn, toJsonColumn } from './json-column';
 import { beginPredictionRun, failInterruptedRun, launchPredictionRun } from './plan-predictions';
 
@@ -146,8 +147,13 @@ async function setupBase(trx: Knex.Transaction, studyId: number, setupId: number
   return { distance: placement.distance, lateralOffset: placement.lateralOffset ?? 0, tiltDeg: placement.tiltDeg ?? 0 };
 }
 
-/** Replaces the plan's points with the design's, and begins a prediction run; returns its id. */
-async function writePoints(trx: Knex.Transaction, planId: number, design: PlanCreate, base: BasePose): Promise<string> {
+/**
+ * Writes the design's points (replacing the old ones of an existing plan), and begins a prediction run;
+ * returns its id. A new plan has nothing to delete or reset, and must not try: a DELETE or UPDATE that
+ * matches no rows still takes gap locks at the end of the index, where every other new plan inserts,
+ * and plans created at the same moment would deadlock on them.
+ */
+async function writePoints(trx: Knex.Transaction, planId: number, design: PlanCreate, base: BasePose, { fresh }: { fresh: boolean }): Promise<string> {
   let points;
   try {
     points = buildPlanPoints(design, base);
@@ -155,10 +161,10 @@ async function writePoints(trx: Knex.Transaction, planId: number, design: PlanCr
     if (error instanceof RangeError) throw unprocessable('Some fields need attention.', [{ path: 'axes', message: error.message }]);
     throw error;
   }
-  await trx('sweep_points').where({ plan_id: planId }).del();
+  if (!fresh) await trx('sweep_points').where({ plan_id: planId }).del();
   const rows = points.map((p) => ({ plan_id: planId, seq: p.seq, repeat_index: p.repeatIndex, is_reference: p.isReference, pose: toJsonColumn(p.pose) }));
   await trx.batchInsert('sweep_points', rows, 500);
-  return beginPredictionRun(trx, planId);
+  return beginPredictionRun(trx, planId, { fresh });
 }
 
 function designColumns(design: PlanCreate) {
@@ -177,15 +183,15 @@ function designColumns(design: PlanCreate) {
 
 /** Creates a draft plan with its points and starts computing their predictions (researchers, admins). */
 export async function createPlan(actor: SessionUser, studyId: number, input: PlanCreate): Promise<Plan> {
-  const { planId, runId } = await db.transaction(async (trx) => {
+  const { planId, runId } = await retryOnDeadlock(() => db.transaction(async (trx) => {
     await requireStudyAccess(actor, studyId, 'study.edit', trx);
     await refuseDuplicateName(trx, studyId, input.name);
     const base = await setupBase(trx, studyId, input.setupId);
     const [id] = await trx('sweep_plans').insert({ study_id: studyId, ...designColumns(input), state: 'draft', created_by: actor.id });
-    const run = await writePoints(trx, id, input, base);
+    const run = await writePoints(trx, id, input, base, { fresh: true });
     await recordAudit(trx, { studyId, actorId: actor.id, action: 'plan.create', targetTable: 'sweep_plans', targetId: id, details: { name: input.name } });
     return { planId: id as number, runId: run };
-  });
+  }));
   void launchPredictionRun(planId, runId);
   return getPlan(actor, studyId, planId);
 }
@@ -225,7 +231,7 @@ export async function updatePlan(actor: SessionUser, studyId: number, planId: nu
     const layoutKeys = ['setupId', 'axes', 'repeats', 'referenceEvery', 'orderMode', 'shuffleSeed'] as const;
     const layoutChanged = layoutKeys.some((key) => JSON.stringify(design[key]) !== JSON.stringify(current[key]));
     await trx('sweep_plans').where({ id: planId }).update({ ...designColumns(design), updated_at: trx.fn.now() });
-    const run = layoutChanged ? await writePoints(trx, planId, design, await setupBase(trx, studyId, design.setupId)) : null;
+    const run = layoutChanged ? await writePoints(trx, planId, design, await setupBase(trx, studyId, design.setupId), { fresh: false }) : null;
     const fields = Object.keys(input).filter((key) => input[key as keyof PlanUpdate] !== undefined);
     await recordAudit(trx, { studyId, actorId: actor.id, action: 'plan.update', targetTable: 'sweep_plans', targetId: planId, details: { name: design.name, fields } });
     return run;

@@ -1,4 +1,5 @@
 import 'server-only';
+import { isDeadlock } from '../db-retry';
 import { ZodError, type ZodType } from 'zod';
 import { readBodyText } from './body-limit';
 import { HttpError, unprocessable, type FieldIssue } from './errors';
@@ -27,6 +28,10 @@ export function errorResponse(error: unknown): Response {
   }
   if (isDuplicateKey(error)) {
     return Response.json({ error: 'That already exists.', issues: [] }, { status: 409 });
+  }
+  if (isDeadlock(error)) {
+    // still deadlocked after the data layer's retries: a busy moment, not a fault of the request
+    return Response.json({ error: 'Couplet is busy with other changes to the same data. Try again in a moment.', issues: [] }, { status: 503, headers: { 'Retry-After': '1' } });
   }
   console.error('Unhandled error in route handler', error);
   return Response.json({ error: 'Something went wrong on our side. Try again.', issues: [] }, { status: 500 });
