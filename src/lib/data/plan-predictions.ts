@@ -177,10 +177,11 @@ export interface BegunRun {
 /**
  * A setup's coils or circuit changed (PRODUCT.md: predictions are recomputed when coils change): begins
  * a run for every plan built on these setups, in the caller's transaction. Launch them after it commits.
+ * Accepted plans keep the predictions they were accepted against: they are the study's record.
  */
 export async function beginRunsForSetups(trx: Knex.Transaction, setupIds: number[]): Promise<BegunRun[]> {
   if (setupIds.length === 0) return [];
-  const planIds: number[] = await trx('sweep_plans').whereIn('setup_id', setupIds).orderBy('id').forUpdate().pluck('id');
+  const planIds: number[] = await trx('sweep_plans').whereIn('setup_id', setupIds).whereNot('state', 'accepted').orderBy('id').forUpdate().pluck('id');
   const begun: BegunRun[] = [];
   for (const planId of planIds) begun.push({ planId, runId: await beginPredictionRun(trx, planId) });
   return begun;

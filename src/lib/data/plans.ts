@@ -304,7 +304,8 @@ async function notifyReviewers(trx: Knex.Transaction, actor: SessionUser, studyI
 export async function recomputePredictions(actor: SessionUser, studyId: number, planId: number): Promise<PlanPrediction> {
   const runId = await db.transaction(async (trx) => {
     await requireStudyAccess(actor, studyId, 'study.edit', trx);
-    await lockPlan(trx, studyId, planId);
+    const row = await lockPlan(trx, studyId, planId);
+    if (row.state === 'accepted') throw conflict('This plan is accepted: it keeps the predictions it was accepted against.');
     return beginPredictionRun(trx, planId);
   });
   void launchPredictionRun(planId, runId);

@@ -1,7 +1,7 @@
 import { createPlanComment, listPlanComments } from '../../../src/lib/data/comments';
 import { runFit } from '../../../src/lib/data/plan-fits';
-import { transitionPlan } from '../../../src/lib/data/plans';
-import { loadGeometry, setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
+import { recomputePredictions, transitionPlan } from '../../../src/lib/data/plans';
+import { beginRunsForSetups, loadGeometry, setPlanSolverPool } from '../../../src/lib/data/plan-predictions';
 import type { PlanPoint } from '../../../src/lib/data/plan-points';
 import { getPlanReview } from '../../../src/lib/data/review';
 import { deliverPending } from '../../../src/lib/mail/outbox';
@@ -185,6 +185,16 @@ describe('plan review: agreement, outliers, fits, comments and decisions', () =>
     // an accepted plan's review is closed
     expect(await statusOf(() => setReviewTolerance(supervisor, padId, planId, 0.1))).toBe(409);
     expect(await statusOf(() => runFit(supervisor, padId, planId, { model: 'tilt_offset', quantity: 'coupling' }))).toBe(409);
+    // and keeps the predictions it was accepted against: no recompute, by hand or after a setup change
+    expect(await statusOf(() => recomputePredictions(researcher, padId, planId))).toBe(409);
+    const setupId = (await db('sweep_plans').where({ id: planId }).first('setup_id')).setup_id;
+    // which plans a change to its setup would recompute, in a transaction thrown away afterwards
+    class Undo extends Error { constructor(readonly planIds: number[]) { super('undo'); } }
+    const rerun = await db.transaction(async (trx) => {
+      throw new Undo((await beginRunsForSetups(trx, [setupId])).map((b) => b.planId));
+    }).catch((e) => (e instanceof Undo ? e.planIds : Promise.reject(e)));
+    expect(rerun.length).toBeGreaterThan(0);
+    expect(rerun).not.toContain(planId);
     expect(await statusOf(() => unmarkOutlier(supervisor, padId, planId, points.find((p) => p.seq === SLIPPED_SEQ)!.id))).toBe(409);
   });
 });
