@@ -1,6 +1,7 @@
 import 'server-only';
 import { db } from '../db';
 import { unprocessable } from '../http/errors';
+import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
 import type { PlanPose } from '../plans/points';
 import { readingCreateSchema, type ReadingFromFile } from '../validations/reading';
@@ -29,6 +30,8 @@ const fileIssue = (message: string) => unprocessable('Some fields need attention
  * and k from it; the reading names the file it came from.
  */
 export async function createReadingFromTouchstone(actor: SessionUser, studyId: number, planId: number, input: ReadingFromFile): Promise<Reading> {
+  // the role first, as every other write: a reviewer learns nothing about files from a refused log
+  await requireStudyAccess(actor, studyId, 'readings.log');
   const { attachment, bytes } = await readAttachmentBytes(actor, studyId, input.attachmentId);
   if (attachment.planId !== planId) throw fileIssue('Choose a file attached to this plan.');
   let data;

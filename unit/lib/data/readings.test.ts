@@ -136,6 +136,8 @@ describe('readings data', () => {
   it('lets students and researchers log; supervisors, admins and outsiders cannot', async () => {
     const [supervisor, admin, outsider] = await Promise.all([SEEDED.supervisor, SEEDED.admin, SEEDED.otherResearcher].map(sessionUserByEmail));
     expect(await statusOf(() => createReading(supervisor, padId, planId, openCircuit(points[2].id, 1)))).toBe(403);
+    // the role is refused before the file is looked up, whatever file is named
+    expect(await statusOf(() => createReadingFromTouchstone(supervisor, padId, planId, readingFromFileSchema.parse({ pointId: points[2].id, attachmentId: 999999999 })))).toBe(403);
     expect(await statusOf(() => acknowledgeCautions(supervisor, padId, planId, BENCH_CAUTIONS_VERSION))).toBe(403);
     expect(await statusOf(() => createReading(admin, padId, planId, openCircuit(points[2].id, 1)))).toBe(403);
     expect(await statusOf(() => createReading(outsider, padId, planId, openCircuit(points[2].id, 1)))).toBe(404);
