@@ -1,4 +1,4 @@
-// The two isolated instances (dev for `npm start`, test for `npm test`): their ports, directories,
+// The isolated instances (dev for `npm start`, test for `npm test`, bench and load for the benchmarks): their ports, directories,
 // secrets, the lock that keeps two runs of the same instance apart, recovery after a killed run,
 // and the environment every child process gets.
 import crypto from 'node:crypto';
@@ -25,6 +25,8 @@ const SETTINGS = {
   test: { dbPort: 3408, dbName: 'couplet_test', smtpPort: 1026, inboxPort: 1081, s3Port: 4570, appPort: 3100, distDir: '.next-test' },
   // scripts/bench-import.mjs: only its MariaDB runs; the other ports are reserved, never opened
   bench: { dbPort: 3490, dbName: 'couplet_bench', smtpPort: 1027, inboxPort: 1082, s3Port: 4571, appPort: 3190, distDir: '.next-bench' },
+  // scripts/load.mjs: the whole service set and a production build of its own
+  load: { dbPort: 3491, dbName: 'couplet_load', smtpPort: 1028, inboxPort: 1083, s3Port: 4572, appPort: 3191, distDir: '.next-load' },
 };
 
 /** The stand-in's bucket and s3rver's fixed credentials (it accepts no others). */
@@ -117,7 +119,7 @@ export function acquireLock(inst) {
       if (e.code !== 'EEXIST') throw e;
     }
     const pid = readPidFile(file);
-    if (pid && pid !== process.pid && isAlive(pid) && /scripts\/(start|test|bench-import|backup|restore)\.mjs/.test(processCmdline(pid))) {
+    if (pid && pid !== process.pid && isAlive(pid) && /scripts\/(start|test|bench-import|load|backup|restore)\.mjs/.test(processCmdline(pid))) {
       return pid;
     }
     removeFile(file);

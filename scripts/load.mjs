@@ -1,0 +1,413 @@
+#!/usr/bin/env node
+/**
+ * Load benchmark of the built app on loopback (`npm run load`), in three parts:
+ *  1. reads: 50 signed-in students of the seeded pad study, one connection each, for 60 s over
+ *     GET /dashboard, /api/studies, the study's plans, one plan, its readings and its review;
+ *     p50/p90/p99 per endpoint and in all, requests/s, non-2xx and errors; target p99 < 100 ms.
+ *  2. solver flood: 20 connections POST heavy solves (two 200-turn helices at tolerance 1e-9) while
+ *     10 connections read /dashboard; counts of 200 / 429 / 503 (with Retry-After) and the
+ *     dashboard's p50/p99 meanwhile; target p99 < 200 ms.
+ *  3. the dashboard's first-load JavaScript from the build, and whether three.js or echarts is in it.
+ *
+ * It runs on an instance of its own ("load": .data/load/, MariaDB 127.0.0.1:3491, SMTP 1028 / inbox
+ * 1083, S3 stand-in 4572, app 3191, build in .next-load/; all + COUPLET_PORT_OFFSET) with the same
+ * scripts as `npm test`: fresh database, migrations, demo seed, build (skipped when current),
+ * `next start`. Everything it started is stopped at the end and on Ctrl-C. A missed latency target
+ * is printed as MISSED; the exit code is 1 only when requests failed (socket errors, timeouts, or
+ * non-2xx answers where none is expected).
+ *
+ * Before part 1, one connection alone for 10 s gives the cost of a request without queueing.
+ *
+ * Usage: node scripts/load.mjs [--seconds N] [--flood-seconds N] [--baseline-seconds N]
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import zlib from 'node:zlib';
+import { createRequire } from 'node:module';
+import { fail, info, ok, reportError, setPrefix, step } from './lib/log.mjs';
+import { acquireLock, childEnv, getInstance, prepareDirs, readOrCreateSecret, recoverLeftovers, releaseLock, ROOT } from './lib/instance.mjs';
+import { databaseUrl, ensureDatabase, startMariaDb } from './lib/mariadb.mjs';
+import { migrate, seed } from './lib/database.mjs';
+import { clearMailDir, startMail } from './lib/mail.mjs';
+import { resetS3Dir, startS3 } from './lib/s3.mjs';
+import { buildIfNeeded, startNext } from './lib/next-app.mjs';
+import { installSignalHandlers, isShuttingDown, onCleanup, runCleanups } from './lib/processes.mjs';
+
+const require = createRequire(import.meta.url);
+const autocannon = require('autocannon');
+
+const arg = (name, fallback) => {
+  const i = process.argv.indexOf(name);
+  return i > 0 ? Number(process.argv[i + 1]) : fallback;
+};
+const READ_SECONDS = arg('--seconds', 60);
+const FLOOD_SECONDS = arg('--flood-seconds', 30);
+const BASELINE_SECONDS = arg('--baseline-seconds', 10);
+const USERS = 50;
+const READ_CONNECTIONS = 50;
+const SOLVE_CONNECTIONS = 20;
+const FLOOD_READERS = 10;
+const READ_P99_TARGET_MS = 100;
+const FLOOD_P99_TARGET_MS = 200;
+const STUDY = 'Seed-tray pad to buried soil probes';
+const PASSWORD = 'load-student-2026';
+
+setPrefix('[couplet load]');
+
+/** Two 200-turn helices at the tightest tolerance the API accepts: the heaviest ordinary solve. */
+const HEAVY_SOLVE = {
+  transmitter: { kind: 'helix', radius: 0.05, turns: 200, length: 0.3, wireDiameter: 0.001 },
+  receiver: { kind: 'helix', radius: 0.05, turns: 200, length: 0.3, wireDiameter: 0.001 },
+  placement: { distance: 0.4 },
+  circuit: { frequency: 6.78e6, topology: 'SS', sourceVoltage: 10, sourceResistance: 0.5, loadResistance: 10 },
+  tolerance: 1e-9,
+};
+
+// ---------------------------------------------------------------------------------------------
+// statistics
+
+/** Nearest-rank percentile of sorted values. */
+function percentile(sorted, p) {
+  if (!sorted.length) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))];
+}
+
+class Tally {
+  constructor() {
+    this.latencies = [];
+    this.statuses = new Map();
+  }
+  add(status, ms) {
+    this.latencies.push(ms);
+    this.statuses.set(status, (this.statuses.get(status) ?? 0) + 1);
+  }
+  get count() {
+    return this.latencies.length;
+  }
+  get non2xx() {
+    let n = 0;
+    for (const [s, c] of this.statuses) if (s < 200 || s > 299) n += c;
+    return n;
+  }
+  summary() {
+    const sorted = [...this.latencies].sort((a, b) => a - b);
+    return { p50: percentile(sorted, 50), p90: percentile(sorted, 90), p99: percentile(sorted, 99), max: sorted.at(-1) ?? NaN };
+  }
+}
+
+const fmt = (v) => (Number.isFinite(v) ? v.toFixed(0) : '-');
+
+function table(head, rows) {
+  const all = [head, ...rows].map((r) => r.map(String));
+  const widths = head.map((_, i) => Math.max(...all.map((r) => r[i].length)));
+  const line = (r) => r.map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join('  ');
+  return [line(all[0]), widths.map((w) => '-'.repeat(w)).join('  '), ...all.slice(1).map(line)].join('\n');
+}
+
+// ---------------------------------------------------------------------------------------------
+// accounts and sign-in
+
+/** Throw-away students of the pad study, written straight into the tables the seed writes. */
+async function createStudents(knex) {
+  const bcrypt = require('bcryptjs');
+  const hash = await bcrypt.hash(PASSWORD, 10);
+  const study = await knex('studies').where({ name: STUDY }).first('id');
+  if (!study) throw new Error(`the seed has no study "${STUDY}"`);
+  const users = [];
+  for (let i = 1; i <= USERS; i++) {
+    const email = `load.student${String(i).padStart(2, '0')}@couplet.test`;
+    const [id] = await knex('users').insert({ email, name: `Load Student ${i}`, password_hash: hash, site_role: 'member' });
+    users.push({ id, email });
+  }
+  await knex('study_members').insert(users.map((u) => ({ study_id: study.id, user_id: u.id, role: 'student' })));
+  return { studyId: study.id, users };
+}
+
+/** Name=value pairs of Set-Cookie headers, merged into a jar. */
+function absorbCookies(jar, response) {
+  for (const c of response.headers.getSetCookie()) {
+    const [pair] = c.split(';');
+    const eq = pair.indexOf('=');
+    jar.set(pair.slice(0, eq).trim(), pair.slice(eq + 1).trim());
+  }
+}
+const cookieHeader = (jar) => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+
+/** next-auth's credentials flow: GET /api/auth/csrf, then POST the form with the CSRF cookie. */
+async function signIn(baseUrl, email) {
+  const jar = new Map();
+  const csrfResponse = await fetch(`${baseUrl}/api/auth/csrf`);
+  absorbCookies(jar, csrfResponse);
+  const { csrfToken } = await csrfResponse.json();
+  const response = await fetch(`${baseUrl}/api/auth/callback/credentials`, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: cookieHeader(jar) },
+    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: 'true' }),
+  });
+  absorbCookies(jar, response);
+  if (![...jar.keys()].some((k) => k.endsWith('next-auth.session-token'))) {
+    throw new Error(`sign-in of ${email} gave no session cookie (HTTP ${response.status}: ${(await response.text()).slice(0, 200)})`);
+  }
+  // The session cookie alone identifies the user; the CSRF and callback cookies only matter to sign-in.
+  return [...jar].filter(([k]) => k.endsWith('next-auth.session-token')).map(([k, v]) => `${k}=${v}`).join('; ');
+}
+
+// ---------------------------------------------------------------------------------------------
+// load
+
+/**
+ * One autocannon instance per connection, each carrying one user's cookie, so every connection is a
+ * distinct signed-in user (autocannon's per-request context is reset on each pass of the request list,
+ * so it cannot pin a user to a connection). Latencies are recorded per request label.
+ */
+function runCannon({ url, requests, cookie, duration, tallies, timeout = 10, onStatus }) {
+  return new Promise((resolve, reject) => {
+    let removeCleanup = () => {};
+    const instance = autocannon(
+      {
+        url,
+        connections: 1,
+        pipelining: 1,
+        duration,
+        timeout,
+        headers: { cookie },
+        requests: requests.map((r) => ({ ...r, headers: { ...r.headers, cookie } })),
+      },
+      (error, result) => {
+        removeCleanup();
+        if (error) reject(error);
+        else resolve(result);
+      },
+    );
+    instance.on('response', (client, status, _bytes, ms) => {
+      const label = client.requestIterator.currentRequest.label;
+      tallies.get(label).add(status, ms);
+      onStatus?.(label, status);
+    });
+    removeCleanup = onCleanup('autocannon', () => instance.stop());
+  });
+}
+
+const sumErrors = (results) => results.reduce((n, r) => n + r.errors + r.timeouts, 0);
+
+async function readPhase(baseUrl, sessions, ids, { connections = READ_CONNECTIONS, seconds: duration = READ_SECONDS, title = 'Phase 1 — reads', target = true } = {}) {
+  const { studyId, planId } = ids;
+  const endpoints = [
+    { label: 'GET /dashboard', method: 'GET', path: '/dashboard' },
+    { label: 'GET /api/studies', method: 'GET', path: '/api/studies' },
+    { label: 'GET /api/studies/{id}/plans', method: 'GET', path: `/api/studies/${studyId}/plans` },
+    { label: 'GET …/plans/{planId}', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}` },
+    { label: 'GET …/plans/{planId}/readings', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}/readings` },
+    { label: 'GET …/plans/{planId}/review', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}/review?quantity=coupling` },
+  ];
+  const tallies = new Map(endpoints.map((e) => [e.label, new Tally()]));
+  step(`${title.toLowerCase()}: ${connections} user(s), one connection each, ${duration} s over ${endpoints.length} reads…`);
+  // Each connection starts at a different point of the list, so every endpoint is hit at every moment.
+  const started = performance.now();
+  const results = await Promise.all(
+    sessions.slice(0, connections).map((cookie, i) => {
+      const k = i % endpoints.length;
+      return runCannon({ url: baseUrl, requests: [...endpoints.slice(k), ...endpoints.slice(0, k)], cookie, duration, tallies });
+    }),
+  );
+  const seconds = (performance.now() - started) / 1000;
+  const all = new Tally();
+  for (const t of tallies.values()) for (let i = 0; i < t.latencies.length; i++) all.latencies.push(t.latencies[i]);
+  for (const t of tallies.values()) for (const [s, c] of t.statuses) all.statuses.set(s, (all.statuses.get(s) ?? 0) + c);
+  const errors = sumErrors(results);
+  const rows = [...tallies, ['all reads', all]].map(([label, t]) => {
+    const s = t.summary();
+    return [label, t.count, (t.count / seconds).toFixed(1), fmt(s.p50), fmt(s.p90), fmt(s.p99), fmt(s.max), t.non2xx];
+  });
+  console.log('');
+  console.log(`${title}: ${connections} signed-in student(s), ${duration} s, latencies in ms`);
+  console.log(table(['endpoint', 'requests', 'req/s', 'p50', 'p90', 'p99', 'max', 'non-2xx'], rows));
+  const p99 = all.summary().p99;
+  console.log(`socket errors + timeouts: ${errors}`);
+  if (target) console.log(`target p99 < ${READ_P99_TARGET_MS} ms for reads: ${p99 < READ_P99_TARGET_MS ? 'met' : 'MISSED'} (p99 ${fmt(p99)} ms)`);
+  return { errors, non2xx: all.non2xx, p99, rows };
+}
+
+async function floodPhase(baseUrl, sessions) {
+  const dashboard = { label: 'GET /dashboard', method: 'GET', path: '/dashboard' };
+  const solve = {
+    label: 'POST /api/solve',
+    method: 'POST',
+    path: '/api/solve',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify(HEAVY_SOLVE),
+    onResponse: (status, _body, _context, headers) => {
+      if (status === 503 || status === 429) (headers?.['retry-after'] !== undefined ? retry : noRetry)[status]++;
+    },
+  };
+  const retry = { 429: 0, 503: 0 };
+  const noRetry = { 429: 0, 503: 0 };
+  const tallies = new Map([[dashboard.label, new Tally()], [solve.label, new Tally()]]);
+  step(`phase 2: ${SOLVE_CONNECTIONS} connections flood POST /api/solve while ${FLOOD_READERS} read /dashboard, ${FLOOD_SECONDS} s…`);
+  const started = performance.now();
+  // Solvers and readers are different users: a per-user solve limit must not shape the readers' view.
+  const solvers = sessions.slice(0, SOLVE_CONNECTIONS).map((cookie) =>
+    runCannon({ url: baseUrl, requests: [solve], cookie, duration: FLOOD_SECONDS, tallies, timeout: 60 }));
+  const readers = sessions.slice(SOLVE_CONNECTIONS, SOLVE_CONNECTIONS + FLOOD_READERS).map((cookie) =>
+    runCannon({ url: baseUrl, requests: [dashboard], cookie, duration: FLOOD_SECONDS, tallies }));
+  const [solveResults, readResults] = await Promise.all([Promise.all(solvers), Promise.all(readers)]);
+  const seconds = (performance.now() - started) / 1000;
+  const s = tallies.get(solve.label);
+  const d = tallies.get(dashboard.label);
+  const ds = d.summary();
+  const ss = s.summary();
+  const other = [...s.statuses].filter(([st]) => ![200, 429, 503].includes(st)).map(([st, c]) => `${st}: ${c}`).join(', ') || 'none';
+  console.log('');
+  console.log(`Phase 2 — solver flood: ${SOLVE_CONNECTIONS} connections of heavy solves (two 200-turn helices, tolerance 1e-9) + ${FLOOD_READERS} reading /dashboard, ${FLOOD_SECONDS} s`);
+  console.log(table(['solve answers', 'count'], [
+    ['200', s.statuses.get(200) ?? 0],
+    ['429 (with Retry-After / without)', `${s.statuses.get(429) ?? 0} (${retry[429]} / ${noRetry[429]})`],
+    ['503 (with Retry-After / without)', `${s.statuses.get(503) ?? 0} (${retry[503]} / ${noRetry[503]})`],
+    ['other statuses', other],
+    ['socket errors + timeouts', sumErrors(solveResults)],
+  ]));
+  console.log(`solve latency ms: p50 ${fmt(ss.p50)}, p99 ${fmt(ss.p99)}; ${(s.count / seconds).toFixed(1)} answers/s`);
+  console.log(`dashboard during the flood: ${d.count} requests (${(d.count / seconds).toFixed(1)}/s), p50 ${fmt(ds.p50)} ms, p90 ${fmt(ds.p90)} ms, p99 ${fmt(ds.p99)} ms, non-2xx ${d.non2xx}, errors ${sumErrors(readResults)}`);
+  console.log(`target dashboard p99 < ${FLOOD_P99_TARGET_MS} ms during the flood: ${ds.p99 < FLOOD_P99_TARGET_MS ? 'met' : 'MISSED'}`);
+  // 429 and 503 are the server shedding load as designed; a solve answer of another status, a 503
+  // without Retry-After, or a failed dashboard read is an error.
+  const otherCount = [...s.statuses].filter(([st]) => ![200, 429, 503].includes(st)).reduce((n, [, c]) => n + c, 0);
+  const errors = sumErrors(solveResults) + sumErrors(readResults) + d.non2xx + otherCount + noRetry[503] + noRetry[429];
+  return { errors, solve: s, retry, dashboard: ds };
+}
+
+// ---------------------------------------------------------------------------------------------
+// first-load JavaScript
+
+/**
+ * The dashboard's first-load JavaScript: the build's root main files plus the page's entry chunks
+ * from its client reference manifest (what the browser loads before the page is interactive).
+ */
+function firstLoadJs(inst) {
+  const dist = path.join(inst.root, inst.distDir);
+  const files = new Set();
+  const buildManifest = JSON.parse(fs.readFileSync(path.join(dist, 'build-manifest.json'), 'utf8'));
+  for (const f of [...(buildManifest.rootMainFiles ?? []), ...(buildManifest.polyfillFiles ?? [])]) if (f.endsWith('.js')) files.add(f);
+  const polyfills = new Set(buildManifest.polyfillFiles ?? []); // loaded only by browsers without modules
+  const appManifestFile = path.join(dist, 'app-build-manifest.json');
+  let source;
+  if (fs.existsSync(appManifestFile)) {
+    const pages = JSON.parse(fs.readFileSync(appManifestFile, 'utf8')).pages ?? {};
+    const key = Object.keys(pages).find((k) => /\/dashboard\/page$/.test(k));
+    for (const f of pages[key] ?? []) if (f.endsWith('.js')) files.add(f);
+    source = `app-build-manifest.json (${key})`;
+  } else {
+    const manifest = path.join(dist, 'server', 'app', '(app)', 'dashboard', 'page_client-reference-manifest.js');
+    const text = fs.readFileSync(manifest, 'utf8');
+    const sandbox = { globalThis: {} };
+    sandbox.globalThis = sandbox;
+    new Function('globalThis', 'self', text)(sandbox, sandbox);
+    const entries = Object.values(sandbox.__RSC_MANIFEST ?? {})[0]?.entryJSFiles ?? {};
+    for (const list of Object.values(entries)) for (const f of list) if (f.endsWith('.js')) files.add(f);
+    source = path.relative(inst.root, manifest);
+  }
+  const rows = [];
+  let raw = 0;
+  let gzip = 0;
+  const markers = { three: [], echarts: [] };
+  for (const f of files) {
+    const full = path.join(dist, f.replace(/^\/?_next\//, ''));
+    const buf = fs.readFileSync(full);
+    const gz = zlib.gzipSync(buf, { level: 9 }).length;
+    if (!polyfills.has(f)) {
+      raw += buf.length;
+      gzip += gz;
+    }
+    const text = buf.toString('utf8');
+    // three.js names its build and its revision; echarts registers itself under these names.
+    if (/THREE\.WebGLRenderer|WebGLRenderer|REVISION\s*=\s*["']\d+|__THREE__/.test(text)) markers.three.push(f);
+    if (/echarts|ECharts|zrender/.test(text)) markers.echarts.push(f);
+    rows.push([f, (buf.length / 1024).toFixed(1), (gz / 1024).toFixed(1), polyfills.has(f) ? 'polyfill (nomodule, not counted)' : '']);
+  }
+  console.log('');
+  console.log(`Phase 3 — first-load JavaScript of /dashboard (from ${source})`);
+  console.log(table(['chunk', 'kB', 'kB gzip', 'note'], rows));
+  console.log(table(['route', 'first-load JS kB', 'kB gzip', 'three.js', 'echarts'], [[
+    '/dashboard', (raw / 1024).toFixed(1), (gzip / 1024).toFixed(1),
+    markers.three.length ? `PRESENT (${markers.three.join(', ')})` : 'absent',
+    markers.echarts.length ? `PRESENT (${markers.echarts.join(', ')})` : 'absent',
+  ]]));
+  return { raw, gzip, markers };
+}
+
+// ---------------------------------------------------------------------------------------------
+
+async function main() {
+  const inst = getInstance('load');
+  prepareDirs(inst);
+  const busy = acquireLock(inst);
+  if (busy) {
+    fail(`another load run is going (pid ${busy}); wait for it`);
+    process.exit(1);
+  }
+  onCleanup('instance lock', () => releaseLock(inst));
+  installSignalHandlers();
+  await recoverLeftovers(inst);
+
+  const password = readOrCreateSecret(path.join(inst.dir, 'db-password'), 18);
+  const nextauthSecret = readOrCreateSecret(path.join(inst.dir, 'nextauth-secret'), 32);
+  await startMariaDb(inst);
+  const url = databaseUrl(inst, password);
+  const env = childEnv(inst, { databaseUrl: url, mailStandIn: true, s3StandIn: true, nextauthSecret });
+  await ensureDatabase(inst, { password, recreate: true });
+  await migrate(inst, env);
+  await seed(inst, env);
+  clearMailDir(inst);
+  await startMail(inst, env);
+  resetS3Dir(inst);
+  await startS3(inst, env);
+
+  const knex = require('knex')({ client: 'mysql2', connection: url, pool: { min: 0, max: 2 } });
+  onCleanup('database pool', () => knex.destroy());
+  step(`creating ${USERS} throw-away students of "${STUDY}"…`);
+  const { studyId, users } = await createStudents(knex);
+  // The plan with the most readings: the heaviest readings list and review of the demo data.
+  const plan = await knex('sweep_plans as p').leftJoin('readings as r', 'r.plan_id', 'p.id').where('p.study_id', studyId)
+    .groupBy('p.id').orderByRaw('count(r.id) desc').first('p.id', knex.raw('count(r.id) as readings'));
+  ok(`students created; plan ${plan.id} has ${plan.readings} readings`);
+
+  await buildIfNeeded(inst, env);
+  await startNext(inst, env);
+
+  // Successful sign-ins are not counted by the limiter (it counts failures only), so 50 in a row are fine.
+  step(`signing ${USERS} students in through next-auth's credentials flow…`);
+  const sessions = [];
+  for (const u of users) sessions.push(await signIn(inst.appUrl, u.email));
+  ok(`${sessions.length} sessions`);
+  // Warm up: the first request of each route compiles nothing in production, but fills caches and pools.
+  for (const p of ['/dashboard', '/api/studies', `/api/studies/${studyId}/plans/${plan.id}/review?quantity=coupling`]) {
+    const r = await fetch(`${inst.appUrl}${p}`, { headers: { cookie: sessions[0] }, redirect: 'manual' });
+    if (r.status !== 200) throw new Error(`warm-up GET ${p} answered ${r.status}`);
+    await r.arrayBuffer();
+  }
+
+  const started = new Date().toISOString();
+  // One user alone first: the cost of a request without queueing, to read the loaded figures against.
+  const alone = await readPhase(inst.appUrl, sessions, { studyId, planId: plan.id }, { connections: 1, seconds: BASELINE_SECONDS, title: 'Baseline — one connection', target: false });
+  const reads = await readPhase(inst.appUrl, sessions, { studyId, planId: plan.id });
+  const flood = await floodPhase(inst.appUrl, sessions);
+  const js = firstLoadJs(inst);
+
+  console.log('');
+  console.log(`started ${started}; ${process.version}; load average at the end ${(await import('node:os')).loadavg().map((l) => l.toFixed(2)).join(' ')}`);
+  const errors = alone.errors + alone.non2xx + reads.errors + reads.non2xx + flood.errors;
+  if (errors) fail(`${errors} failed requests (errors, timeouts or unexpected statuses)`);
+  else ok('no failed requests');
+  return errors ? 1 : 0;
+}
+
+let code = 1;
+try {
+  code = await main();
+} catch (error) {
+  if (isShuttingDown()) await new Promise(() => {});
+  reportError(error, ROOT);
+}
+await runCleanups();
+process.exit(code);
