@@ -33,7 +33,7 @@ export async function seed(knex: Knex): Promise<void> {
   // Children first, so foreign keys never block the reset. A correction references the version it
   // supersedes, so readings go newest version first.
   await knex.raw('DELETE FROM readings ORDER BY version DESC');
-  for (const table of ['mail_outbox', 'plan_reviews', 'plan_fits', 'outlier_marks', 'plan_comments', 'attachments', 'caution_acknowledgements', 'reading_column_maps', 'audit_events', 'invitations', 'sweep_points', 'sweep_plans', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'users']) {
+  for (const table of ['mail_outbox', 'plan_reviews', 'plan_fits', 'outlier_marks', 'plan_comments', 'attachments', 'caution_acknowledgements', 'reading_column_maps', 'audit_events', 'invitations', 'sweep_points', 'sweep_plans', 'setups', 'coils', 'study_members', 'studies', 'sign_in_limits', 'user_sessions', 'users']) {
     await knex(table).del();
   }
 

@@ -280,6 +280,13 @@ export const ROUTE_MATRIX: RouteRow[] = [
     request: () => ({ path: '/api/solve', data: { transmitter: LOOP_TX, receiver: LOOP_RX, placement: { distance: 0.1 }, circuit: CIRCUIT, tolerance: 1e-6 } }),
   }),
 
+  row('POST', '/api/account/password', {
+    access: SIGNED_IN,
+    allowed: 422,
+    why: 'a new password too short to accept: a change would end the demo accounts\' other sessions (e2e/sessions.spec.ts changes a throwaway account\'s)',
+    request: (f, caller) => ({ path: '/api/account/password', data: { currentPassword: caller === 'anonymous' ? 'no-session' : CALLER_ACCOUNTS[caller].password, newPassword: 'short' } }),
+  }),
+
   // studies and accounts
   row('GET', '/api/studies', { access: SIGNED_IN, allowed: 200, request: () => ({ path: '/api/studies' }) }),
   row('POST', '/api/studies', {

@@ -4,11 +4,11 @@ declare module 'next-auth' {
   interface User {
     id: string;
     siteRole: SiteRole;
-    sessionVersion: number;
   }
   interface Session {
     user: { id: string; name: string; email: string; siteRole: SiteRole };
-    sessionVersion: number;
+    /** The user_sessions row this session belongs to (opaque; useless without the signed cookie). */
+    sid: string;
   }
 }
 
@@ -16,6 +16,7 @@ declare module 'next-auth/jwt' {
   interface JWT {
     uid?: string;
     siteRole?: SiteRole;
-    sessionVersion?: number;
+    /** The user_sessions row, written at sign-in; the server refuses the token once that row is ended. */
+    sid?: string;
   }
 }

@@ -4,24 +4,14 @@ import CredentialsProvider from 'next-auth/providers/credentials';
 import { findUserForSignIn } from '../data/users';
 import { signInSchema } from '../validations/account';
 import { decoyPasswordHash, verifyPassword } from './password';
-import { assertSignInAllowed, clearSignInFailures, recordSignInFailure } from './sign-in-limiter';
-
-/** How long a session lasts without activity: one working day. */
-const SESSION_MAX_AGE_SECONDS = 8 * 60 * 60;
-
-/**
- * The client address for rate limiting, known only behind a reverse proxy that sets X-Forwarded-For.
- * Without one every request would share one key, and a few bad guesses could lock everyone out.
- */
-function clientAddress(headers: Record<string, unknown> | undefined): string | null {
-  const forwarded = headers?.['x-forwarded-for'];
-  if (typeof forwarded === 'string' && forwarded.length > 0) return forwarded.split(',')[0].trim();
-  return null;
-}
+import { endSession, SESSION_MAX_AGE_SECONDS, startSession } from './sessions';
+import { assertSignInAllowed, clearSignInFailures, clientAddress, recordSignInFailure } from './sign-in-limiter';
 
 /**
  * next-auth configuration: e-mail + password sign-in against bcrypt hashes in MariaDB, JWT sessions
- * in an httpOnly, SameSite=Lax cookie. Messages thrown from `authorize` reach the sign-in form.
+ * in an httpOnly, SameSite=Lax cookie. Each sign-in also writes a user_sessions row whose id the JWT
+ * carries (`sid`), and sign-out ends that row, so a copy of the cookie stops working with its owner's
+ * sign-out (src/lib/auth/sessions.ts). Messages thrown from `authorize` reach the sign-in form.
  */
 export const authOptions: NextAuthOptions = {
   secret: process.env.NEXTAUTH_SECRET,
@@ -47,7 +37,7 @@ export const authOptions: NextAuthOptions = {
         }
         if (user.disabled) throw new Error('This account is disabled. Ask your site admin to re-enable it.');
         await clearSignInFailures(email);
-        return { id: String(user.id), name: user.name, email: user.email, siteRole: user.siteRole, sessionVersion: user.sessionVersion };
+        return { id: String(user.id), name: user.name, email: user.email, siteRole: user.siteRole };
       },
     }),
   ],
@@ -56,7 +46,8 @@ export const authOptions: NextAuthOptions = {
       if (user) {
         token.uid = user.id;
         token.siteRole = user.siteRole;
-        token.sessionVersion = user.sessionVersion;
+        // `user` is only present at sign-in: this is where a session begins.
+        token.sid = await startSession(Number(user.id));
       }
       return token;
     },
@@ -67,8 +58,16 @@ export const authOptions: NextAuthOptions = {
         email: token.email ?? '',
         siteRole: token.siteRole ?? 'member',
       };
-      session.sessionVersion = token.sessionVersion ?? 0;
+      session.sid = token.sid ?? '';
       return session;
+    },
+  },
+  events: {
+    // With JWT sessions next-auth hands over the decoded cookie. A failure here is logged by next-auth
+    // and the cookie is still cleared in this browser, but copies of it keep working until the session
+    // ends another way (idle limit, password change, account disabled).
+    async signOut({ token }) {
+      if (typeof token?.sid === 'string' && token.sid !== '') await endSession(token.sid);
     },
   },
 };

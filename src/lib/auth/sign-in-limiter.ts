@@ -13,6 +13,17 @@ const ADDRESS_FAILURES_ALLOWED = 30;
 const WINDOW_SECONDS = 15 * 60;
 const BLOCK_SECONDS = 15 * 60;
 
+/**
+ * The client address for rate limiting, known only behind a reverse proxy that sets X-Forwarded-For.
+ * Without one every request would share one key, and a few bad guesses could lock everyone out.
+ * Takes next-auth's plain header object or a fetch Request's Headers.
+ */
+export function clientAddress(headers: Headers | Record<string, unknown> | undefined): string | null {
+  const forwarded = headers instanceof Headers ? headers.get('x-forwarded-for') : headers?.['x-forwarded-for'];
+  if (typeof forwarded === 'string' && forwarded.length > 0) return forwarded.split(',')[0].trim();
+  return null;
+}
+
 function databaseName(): string {
   return new URL(serverEnv().DATABASE_URL).pathname.replace(/^\//, '');
 }

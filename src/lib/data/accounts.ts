@@ -2,6 +2,7 @@ import 'server-only';
 import { db } from '../db';
 import { hashPassword } from '../auth/password';
 import { canManageAccounts, type SiteRole } from '../auth/permissions';
+import { endUserSessions } from '../auth/sessions';
 import type { SessionUser } from '../auth/session-user';
 import { conflict, forbidden, notFound } from '../http/errors';
 import { recordAudit } from './audit';
@@ -95,11 +96,10 @@ export async function updateAccount(
     const changes: Record<string, unknown> = { updated_at: new Date() };
     if (input.name !== undefined) changes.name = input.name;
     if (input.siteRole !== undefined) changes.site_role = input.siteRole;
-    if (input.disabled !== undefined) {
-      changes.disabled_at = input.disabled ? new Date() : null;
-      if (input.disabled) changes.session_version = trx.raw('session_version + 1');
-    }
+    if (input.disabled !== undefined) changes.disabled_at = input.disabled ? new Date() : null;
     await trx('users').where({ id: userId }).update(changes);
+    // Ended, not only refused while disabled: re-enabling the account must not bring old cookies back.
+    if (input.disabled === true) await endUserSessions(trx, userId);
     await recordAudit(trx, { actorId: actor.id, action: 'account.update', targetTable: 'users', targetId: userId, details: input });
   });
   return toAccount(await accountsQuery().where('users.id', userId).first());

@@ -39,3 +39,15 @@ export const invitationAcceptNewSchema = z
     message: 'The passwords do not match.',
   });
 export type InvitationAcceptNewInput = z.input<typeof invitationAcceptNewSchema>;
+
+/** The signed-in person changing their own password. */
+export const passwordChangeSchema = z
+  .object({
+    currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(200, 'That password is too long.'),
+    newPassword: newPasswordSchema,
+  })
+  .refine((value) => value.newPassword !== value.currentPassword, {
+    path: ['newPassword'],
+    message: 'Choose a password different from the current one.',
+  });
+export type PasswordChangeInput = z.input<typeof passwordChangeSchema>;
