@@ -18,9 +18,9 @@ const signed = (text: string) => text.replace(/^-/, MINUS);
 const missing = (v: number | null | undefined): v is null | undefined => v === null || v === undefined || !Number.isFinite(v);
 
 /** 0.012345 -> "1.23 %"; the sign is kept for negatives ("−1.23 %"). */
-export function formatPercentValue(fraction: number | null | undefined): string {
+export function formatPercentValue(fraction: number | null | undefined, decimals = PERCENT_DECIMALS): string {
   if (missing(fraction)) return NO_VALUE;
-  const text = Math.abs(fraction * 100).toFixed(PERCENT_DECIMALS);
+  const text = Math.abs(fraction * 100).toFixed(decimals);
   return `${fraction < 0 && Number(text) !== 0 ? MINUS : ''}${text} %`;
 }
 

@@ -1,4 +1,5 @@
 import 'server-only';
+import type { Knex } from 'knex';
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { StudyRole } from '../auth/permissions';
@@ -12,6 +13,16 @@ export interface StudyMember {
   email: string;
   role: StudyRole;
   joinedAt: string;
+}
+
+/** E-mail addresses of the study's members in `roles` whose accounts are enabled: who hears of a plan's progress. */
+export async function activeMemberEmails(trx: Knex | Knex.Transaction, studyId: number, roles: readonly StudyRole[]): Promise<{ email: string }[]> {
+  return trx('study_members')
+    .join('users', 'users.id', 'study_members.user_id')
+    .where('study_members.study_id', studyId)
+    .whereIn('study_members.role', roles)
+    .whereNull('users.disabled_at')
+    .select('users.email');
 }
 
 /** The members of a study, researchers first. Any member (or an admin) may see them. */

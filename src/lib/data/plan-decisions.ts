@@ -5,10 +5,11 @@ import { serverEnv } from '../env';
 import { unprocessable } from '../http/errors';
 import { enqueueMail } from '../mail/outbox';
 import { planDecisionMail } from '../mail/templates';
-import { formatPercent } from '../review/format';
+import { formatPercentValue } from '../../components/review/format-review';
 import type { AgreementSummary, ReviewDecision } from '../review/types';
 import type { PlanTransitionInput } from '../validations/plan';
 import { toJsonColumn } from './json-column';
+import { activeMemberEmails } from './members';
 import { lockablePlanHead, reviewWithin } from './review';
 
 /**
@@ -18,11 +19,14 @@ import { lockablePlanHead, reviewWithin } from './review';
  * relay that is down only delays the e-mail; the caller kicks the outbox after the commit.
  */
 
+/** The review page's address, which every e-mail about a plan's review links to. */
+export const planReviewUrl = (studyId: number, planId: number) => `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}/review`;
+
 /** One line for the e-mail: the figure a reader looks for first. */
 function agreementLine(summary: AgreementSummary | null): string | null {
   if (!summary || summary.rmsRelative === null) return null;
-  return `RMS relative error of the coupling coefficient k: ${formatPercent(summary.rmsRelative)} over ${summary.compared} pose${summary.compared === 1 ? '' : 's'}`
-    + ` (${summary.outsideTolerance} outside ±${formatPercent(summary.tolerance, 0)}).`;
+  return `RMS relative error of the coupling coefficient k: ${formatPercentValue(summary.rmsRelative)} over ${summary.compared} pose${summary.compared === 1 ? '' : 's'}`
+    + ` (${summary.outsideTolerance} outside ±${formatPercentValue(summary.tolerance, 0)}).`;
 }
 
 export async function recordDecision(
@@ -42,16 +46,11 @@ export async function recordDecision(
   const summary = review.summary.compared > 0 ? review.summary : null;
   await trx('plan_reviews').insert({ plan_id: planId, decision, reason: reason || null, reviewer_id: actor.id, summary: toJsonColumn(summary) });
 
-  const recipients: { email: string }[] = await trx('study_members')
-    .join('users', 'users.id', 'study_members.user_id')
-    .where('study_members.study_id', studyId)
-    .whereIn('study_members.role', ['researcher', 'student'])
-    .whereNull('users.disabled_at')
-    .select('users.email');
+  const recipients = await activeMemberEmails(trx, studyId, ['researcher', 'student']);
   const study = await trx('studies').where({ id: studyId }).first('name');
   const mail = planDecisionMail({
     studyName: study.name, planName, reviewerName: actor.name, decision, reason,
-    link: `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}/review`, agreement: agreementLine(summary),
+    link: planReviewUrl(studyId, planId), agreement: agreementLine(summary),
   });
   for (const recipient of recipients) await enqueueMail(trx, { to: recipient.email, ...mail }, { kind: 'plan.decision', studyId });
 }

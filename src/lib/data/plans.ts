@@ -4,8 +4,8 @@ import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
 import { conflict, notFound, unprocessable } from '../http/errors';
-import { serverEnv } from '../env';
-import { recordDecision } from './plan-decisions';
+import { planReviewUrl, recordDecision } from './plan-decisions';
+import { activeMemberEmails } from './members';
 import { enqueueMail, kickOutbox } from '../mail/outbox';
 import { planSubmittedMail } from '../mail/templates';
 import type { PlanAxis } from '../plans/axes';
@@ -286,13 +286,9 @@ async function notifyReviewers(trx: Knex.Transaction, actor: SessionUser, studyI
   const logged = await trx('readings').where({ plan_id: planId }).countDistinct({ n: 'point_id' }).first();
   const pointsLogged = Number(logged?.n ?? 0);
   if (pointsLogged === 0) throw conflict('Log at least one reading before sending the plan for review.');
-  const supervisors: { email: string }[] = await trx('study_members')
-    .join('users', 'users.id', 'study_members.user_id')
-    .where({ 'study_members.study_id': studyId, 'study_members.role': 'supervisor' })
-    .whereNull('users.disabled_at')
-    .select('users.email');
+  const supervisors = await activeMemberEmails(trx, studyId, ['supervisor']);
   const study = await trx('studies').where({ id: studyId }).first('name');
-  const link = `${serverEnv().APP_URL}/studies/${studyId}/plans/${planId}/review`;
+  const link = planReviewUrl(studyId, planId);
   const pointCount = Number((await trx('sweep_points').where({ plan_id: planId }).count({ n: '*' }).first())?.n ?? 0);
   const mail = planSubmittedMail({ studyName: study.name, planName, submitterName: actor.name, link, pointsLogged, pointCount });
   for (const supervisor of supervisors) {
