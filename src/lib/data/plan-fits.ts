@@ -75,14 +75,14 @@ interface PosePoint {
 }
 
 /** The quantity at each pose for parameter value `p`, under `model`. */
-function modelEvaluator(model: FitModel, quantity: ReviewQuantity, geometry: PlanSetupGeometry) {
+function modelEvaluator(model: FitModel, quantity: ReviewQuantity, geometry: PlanSetupGeometry, owner: string) {
   return async (points: readonly PosePoint[], p: number): Promise<number[]> => {
     if (!isPoseModel(model)) {
       return points.map((point) => efficiencyWithExtraReceiverResistance(predictedLink(geometry.circuit, point.pose, point.predicted), p));
     }
     const pool = await planPool();
     // the operator's field is not needed to fit k or M
-    const predictions = await solvePoses(pool, { ...geometry, operatorPoint: null }, points.map((point) => offsetPose(model, point.pose, p)));
+    const predictions = await solvePoses(pool, { ...geometry, operatorPoint: null }, points.map((point) => offsetPose(model, point.pose, p)), owner);
     return predictions.map((prediction) => prediction[quantity]);
   };
 }
@@ -123,7 +123,7 @@ export async function runFit(actor: SessionUser, studyId: number, planId: number
   }
   const geometry = await loadGeometry(planId);
   if (!geometry) throw unprocessable('The plan has no setup to fit against.');
-  const evaluate = modelEvaluator(input.model, input.quantity, geometry);
+  const evaluate = modelEvaluator(input.model, input.quantity, geometry, `plan-fit:${planId}`);
   const usedPoints = used.map((p) => ({ key: p.key, pose: p.pose, predicted: predictedByKey.get(p.key)! }));
   const range = searchRange(input.model, usedPoints.map((p) => p.pose), usedPoints.map((p) => p.predicted));
 

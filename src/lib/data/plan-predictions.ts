@@ -141,7 +141,7 @@ export async function computePredictions(planId: number, runId: string): Promise
     const batch = distinct.slice(start, start + PREDICTION_BATCH);
     let predictions: PointPrediction[];
     try {
-      predictions = await solvePoses(pool, geometry, batch.map((g) => g.pose));
+      predictions = await solvePoses(pool, geometry, batch.map((g) => g.pose), `plan:${planId}`);
     } catch (error) {
       await markFailed(planId, runId, failureMessage(error));
       return;

@@ -14,6 +14,19 @@ export class SolverBusyError extends HttpError {
   }
 }
 
+/**
+ * This person (or plan run) already has as many solves running or waiting as one owner may: 429, so a
+ * client that floods the solver is told to slow down while everyone else's solves still find room.
+ */
+export class SolverQuotaError extends HttpError {
+  constructor(readonly retryAfterSeconds: number, readonly limit: number) {
+    super(429, `You already have ${limit} solves running or waiting. Try again in ${retryAfterSeconds} s.`, [], {
+      'Retry-After': String(retryAfterSeconds),
+    });
+    this.name = 'SolverQuotaError';
+  }
+}
+
 /** A job ran past the pool's time limit; its worker was stopped. */
 export class SolverTimeoutError extends HttpError {
   constructor(readonly timeoutMs: number) {

@@ -2,7 +2,7 @@ import 'server-only';
 import { Worker } from 'node:worker_threads';
 import { solverPoolConfig } from './config';
 import type { SolveJob, SolveJobResult } from './job';
-import { SolverPool } from './solver-pool';
+import { SolverPool, type SolveOptions } from './solver-pool';
 
 /**
  * The web server's one solver pool (cached on globalThis so `next dev` reloads do not start more).
@@ -26,7 +26,10 @@ export function serverSolverPool(): SolverPool {
   return holder.coupletSolverPool;
 }
 
-/** Solves on a worker thread. Throws 422 (input), 503 (busy, timed out) or 500 (worker failure) HttpErrors. */
-export function solveOnServer(job: SolveJob): Promise<SolveJobResult> {
-  return serverSolverPool().solve(job);
+/**
+ * Solves on a worker thread. Throws 422 (input), 429 (the owner's share is taken), 503 (busy, timed out)
+ * or 500 (worker failure) HttpErrors.
+ */
+export function solveOnServer(job: SolveJob, options?: SolveOptions): Promise<SolveJobResult> {
+  return serverSolverPool().solve(job, options);
 }

@@ -1,14 +1,17 @@
 /**
  * A bounded pool of solver worker threads: at most `size` jobs run at once (one per worker), at most
  * `queueLimit` wait; beyond that a job is refused at once with SolverBusyError (503 + Retry-After) instead
- * of piling up. A job running past `timeoutMs` has its worker terminated (the only way to stop synchronous
+ * of piling up. Jobs may name an owner (a person, a plan run): one owner holds at most `perOwnerLimit`
+ * jobs running or waiting (SolverQuotaError, 429, beyond that), and a free worker takes the waiting job
+ * of the owner with the fewest jobs running, so one busy client cannot starve the others. A waiting job
+ * whose request was abandoned (its AbortSignal fired) leaves the queue. A job running past `timeoutMs` has its worker terminated (the only way to stop synchronous
  * work) and replaced. The clock starts when the worker has loaded its code (it posts `{ ready: true }`), so
  * a slow thread start-up is not charged to the first job. Workers start on first use and are unref'd while idle, so an idle pool never keeps a
  * process (jest, the benchmark, `next build`) alive.
  */
 import type { Worker } from 'node:worker_threads';
-import { unprocessable } from '../http/errors';
-import { SolverBusyError, SolverClosedError, SolverFailedError, SolverTimeoutError } from './errors';
+import { HttpError, unprocessable } from '../http/errors';
+import { SolverBusyError, SolverClosedError, SolverFailedError, SolverQuotaError, SolverTimeoutError } from './errors';
 import type { SolveJob, SolveJobOutcome, SolveJobResult } from './job';
 
 export interface SolverPoolOptions {
@@ -16,17 +19,32 @@ export interface SolverPoolOptions {
   size: number;
   /** jobs allowed to wait for a worker */
   queueLimit: number;
+  /** jobs one owner may have running or waiting (unlimited when absent) */
+  perOwnerLimit?: number;
   /** longest run of one job [ms] */
   timeoutMs: number;
   /** starts a worker running solve-worker.ts (bundled in production, from sources in jest and the bench) */
   createWorker: () => Worker;
 }
 
+/** Who a job is for, and a way to give up on it while it still waits. */
+export interface SolveOptions {
+  /** Jobs of one owner share the per-owner limit; jobs without an owner share none. */
+  owner?: string;
+  /** Aborting removes the job from the queue (a running job finishes; its answer is dropped). */
+  signal?: AbortSignal;
+}
+
 interface Job {
   id: number;
   job: SolveJob;
+  owner: string | undefined;
   resolve: (result: SolveJobResult) => void;
   reject: (error: Error) => void;
+  /** Detaches the abort listener once the job has left the queue. */
+  detach: () => void;
+  /** Answered or failed: later answers (after a timeout, say) change no count. */
+  settled: boolean;
 }
 
 interface Slot {
@@ -55,12 +73,38 @@ function outcomeError(error: Extract<SolveJobOutcome, { ok: false }>['error']): 
   return new SolverFailedError(error.message);
 }
 
+/** Jobs without an owner are counted together under "", which no real owner name is; they have no limit. */
+const ownerKey = (owner: string | undefined) => owner ?? '';
+
+/** Lowers a count, removing the key at zero; returns the new count. */
+function decrement(counts: Map<string, number>, key: string): number {
+  const n = (counts.get(key) ?? 0) - 1;
+  if (n > 0) counts.set(key, n);
+  else counts.delete(key);
+  return Math.max(0, n);
+}
+
+/**
+ * What a queued job rejects with when its request was abandoned. The client is gone, so nobody reads
+ * it; an HttpError keeps it out of the server log's unexpected failures.
+ */
+function abortError(): Error {
+  return new HttpError(503, 'The solve was abandoned before it started.');
+}
+
 export class SolverPool {
   private readonly slots = new Set<Slot>();
   private readonly queue: Job[] = [];
   private nextId = 1;
   private closed = false;
   private averageRunMs = 0;
+  /** Running and waiting jobs per owner (jobs without owner under ""). */
+  private readonly ownerJobs = new Map<string, number>();
+  /** Running jobs per owner, for choosing whose waiting job goes next (jobs without owner under ""). */
+  private readonly ownerRunning = new Map<string, number>();
+  /** When each owner with jobs last had one dispatched (a dispatch count), for taking turns. */
+  private readonly lastServed = new Map<string, number>();
+  private dispatches = 0;
 
   constructor(private readonly options: SolverPoolOptions) {
     if (!(options.size >= 1) || !(options.queueLimit >= 0) || !(options.timeoutMs > 0)) {
@@ -68,15 +112,33 @@ export class SolverPool {
     }
   }
 
-  /** Runs a job on a free worker, queues it, or refuses it when the queue is full. */
-  solve(job: SolveJob): Promise<SolveJobResult> {
+  /** Runs a job on a free worker, queues it, or refuses it when the queue or the owner's share is full. */
+  solve(job: SolveJob, { owner, signal }: SolveOptions = {}): Promise<SolveJobResult> {
     if (this.closed) return Promise.reject(new SolverClosedError());
+    if (signal?.aborted) return Promise.reject(abortError());
+    const limit = this.options.perOwnerLimit;
+    if (owner !== undefined && limit !== undefined && (this.ownerJobs.get(ownerKey(owner)) ?? 0) >= limit) {
+      return Promise.reject(new SolverQuotaError(this.retryAfterSeconds(), limit));
+    }
     return new Promise<SolveJobResult>((resolve, reject) => {
-      const entry: Job = { id: this.nextId++, job, resolve, reject };
+      const entry: Job = {
+        id: this.nextId++,
+        job,
+        owner,
+        resolve: (result) => this.settle(entry, () => resolve(result)),
+        reject: (error) => this.settle(entry, () => reject(error)),
+        detach: () => {},
+        settled: false,
+      };
       const slot = this.freeSlot();
       if (slot) this.dispatch(slot, entry);
-      else if (this.queue.length < this.options.queueLimit) this.queue.push(entry);
-      else reject(new SolverBusyError(this.retryAfterSeconds()));
+      else if (this.queue.length < this.options.queueLimit) this.enqueue(entry, signal);
+      else {
+        reject(new SolverBusyError(this.retryAfterSeconds()));
+        return;
+      }
+      const key = ownerKey(owner);
+      this.ownerJobs.set(key, (this.ownerJobs.get(key) ?? 0) + 1);
     });
   }
 
@@ -96,6 +158,53 @@ export class SolverPool {
       return slot.worker.terminate();
     });
     await Promise.all(stopping);
+  }
+
+  private enqueue(entry: Job, signal: AbortSignal | undefined): void {
+    this.queue.push(entry);
+    if (!signal) return;
+    const onAbort = () => {
+      const at = this.queue.indexOf(entry);
+      if (at < 0) return;
+      this.queue.splice(at, 1);
+      entry.reject(abortError());
+    };
+    signal.addEventListener('abort', onAbort, { once: true });
+    entry.detach = () => signal.removeEventListener('abort', onAbort);
+  }
+
+  /** Bookkeeping once a job has an answer or an error, then the caller's callback. */
+  private settle(entry: Job, then: () => void): void {
+    if (entry.settled) return;
+    entry.settled = true;
+    entry.detach();
+    const key = ownerKey(entry.owner);
+    // an owner with nothing left is forgotten, so the maps hold only owners with jobs
+    if (decrement(this.ownerJobs, key) === 0) this.lastServed.delete(key);
+    then();
+  }
+
+  /**
+   * The next waiting job: its owner has the fewest jobs running, and among equals was served longest
+   * ago (or never), so owners take turns; among one owner's jobs, the oldest.
+   */
+  private takeNext(): Job {
+    let best = 0;
+    let bestRunning = Infinity;
+    let bestServed = Infinity;
+    for (let i = 0; i < this.queue.length; i++) {
+      const key = ownerKey(this.queue[i].owner);
+      const running = this.ownerRunning.get(key) ?? 0;
+      const served = this.lastServed.get(key) ?? -1;
+      if (running < bestRunning || (running === bestRunning && served < bestServed)) {
+        best = i;
+        bestRunning = running;
+        bestServed = served;
+      }
+    }
+    const [entry] = this.queue.splice(best, 1);
+    entry.detach();
+    return entry;
   }
 
   /** Seconds until a place in the queue is likely free: the queue drained at the average run time. */
@@ -131,6 +240,9 @@ export class SolverPool {
 
   private dispatch(slot: Slot, entry: Job): void {
     slot.current = entry;
+    const key = ownerKey(entry.owner);
+    this.ownerRunning.set(key, (this.ownerRunning.get(key) ?? 0) + 1);
+    this.lastServed.set(key, this.dispatches++);
     slot.worker.ref(); // a running job keeps the process alive until it answers
     // a starting worker receives the job once it listens; its clock starts with the ready message
     this.startClock(slot, this.options.timeoutMs + (slot.ready ? 0 : START_UP_ALLOWANCE_MS));
@@ -158,6 +270,7 @@ export class SolverPool {
   }
 
   private release(slot: Slot): void {
+    if (slot.current) decrement(this.ownerRunning, ownerKey(slot.current.owner));
     if (slot.timer) clearTimeout(slot.timer);
     slot.timer = null;
     slot.current = null;
@@ -177,7 +290,7 @@ export class SolverPool {
     while (!this.closed && this.queue.length > 0) {
       const slot = this.freeSlot();
       if (!slot) return;
-      this.dispatch(slot, this.queue.shift()!);
+      this.dispatch(slot, this.takeNext());
     }
   }
 }

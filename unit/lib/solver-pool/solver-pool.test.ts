@@ -3,11 +3,13 @@
  * source: answers equal a direct solve() in this thread, a full queue refuses at once, a job past the time
  * limit and a failing or crashing worker surface as clear errors, and the pool keeps working afterwards.
  */
+import fs from 'node:fs';
+import os from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { fieldAtPoints, frequencyResponse, solve } from '../../../src/physics';
 import type { SolveRequest } from '../../../src/physics/types';
 import { HttpError } from '../../../src/lib/http/errors';
-import { SolverBusyError, SolverFailedError, SolverTimeoutError } from '../../../src/lib/solver-pool/errors';
+import { SolverBusyError, SolverFailedError, SolverQuotaError, SolverTimeoutError } from '../../../src/lib/solver-pool/errors';
 import { createSourceWorker } from '../../../src/lib/solver-pool/source-worker';
 import { SolverPool, type SolverPoolOptions } from '../../../src/lib/solver-pool/solver-pool';
 
@@ -111,6 +113,79 @@ describe('limits', () => {
     expect(error.message).toMatch(/longer than 0.3 s/);
     expect(Date.now() - started).toBeLessThan(3000); // stopped, not left to finish its ~10 s
     expect((await behind).mutualInductance).toBe(solve(example()).mutualInductance);
+  });
+});
+
+describe('sharing between owners', () => {
+  /** Resolves with `label` once the job answers, recording the order answers arrive in. */
+  const track = (order: string[], label: string, promise: Promise<unknown>) => promise.then(() => order.push(label));
+
+  test('an owner past its share gets SolverQuotaError (429, Retry-After) while others still queue', async () => {
+    const p = pool({ size: 1, queueLimit: 8, perOwnerLimit: 2 });
+    const mine = [p.solve(example(), { owner: 'user:1' }), p.solve(example(), { owner: 'user:1' })];
+    const refused = await rejection(p.solve(example(), { owner: 'user:1' }));
+    expect(refused).toBeInstanceOf(SolverQuotaError);
+    expect((refused as SolverQuotaError).status).toBe(429);
+    expect((refused as SolverQuotaError).headers['Retry-After']).toMatch(/^[1-9]\d*$/);
+    expect(refused.message).toMatch(/2 solves running or waiting/);
+    // another person, and work without an owner, still find room in the queue
+    const theirs = p.solve(example(), { owner: 'user:2' });
+    const unowned = [p.solve(example()), p.solve(example()), p.solve(example())];
+    await Promise.all([...mine, theirs, ...unowned]);
+    // the share is given back as jobs answer: the same owner may solve again
+    expect((await p.solve(example(), { owner: 'user:1' })).mutualInductance).toBe(solve(example()).mutualInductance);
+    expect(p.stats()).toEqual({ workers: 1, running: 0, queued: 0 });
+  });
+
+  test('a failed or timed-out job gives its share back too', async () => {
+    const p = pool({ size: 1, queueLimit: 4, perOwnerLimit: 1, timeoutMs: 300 });
+    expect(await rejection(p.solve(heavy(), { owner: 'user:1' }))).toBeInstanceOf(SolverTimeoutError);
+    expect((await p.solve(example(), { owner: 'user:1' })).mutualInductance).toBe(solve(example()).mutualInductance);
+  });
+
+  test('owners take turns: a newcomer is served before the rest of a busy owner\'s queue', async () => {
+    const p = pool({ size: 1, queueLimit: 8, perOwnerLimit: 8 });
+    const order: string[] = [];
+    const jobs = [
+      track(order, 'a1', p.solve(example(), { owner: 'a' })),
+      track(order, 'a2', p.solve(example(), { owner: 'a' })),
+      track(order, 'a3', p.solve(example(), { owner: 'a' })),
+      track(order, 'b1', p.solve(example(), { owner: 'b' })),
+      track(order, 'b2', p.solve(example(), { owner: 'b' })),
+    ];
+    await Promise.all(jobs);
+    // first come first served would give a1 a2 a3 b1 b2
+    expect(order).toEqual(['a1', 'b1', 'a2', 'b2', 'a3']);
+  });
+
+  test('a waiting job whose request was abandoned leaves the queue at once', async () => {
+    const p = pool({ size: 1, queueLimit: 4, perOwnerLimit: 1 });
+    const running = p.solve(example(), { owner: 'user:1' });
+    const abandon = new AbortController();
+    const waiting = p.solve(example(), { owner: 'user:2', signal: abandon.signal });
+    expect(p.stats().queued).toBe(1);
+    abandon.abort();
+    expect((await rejection(waiting)).message).toMatch(/abandoned/);
+    expect(p.stats().queued).toBe(0);
+    await running;
+    // its share is free again
+    expect((await p.solve(example(), { owner: 'user:2' })).mutualInductance).toBe(solve(example()).mutualInductance);
+  });
+});
+
+describe('priority', () => {
+  /** Niceness of each thread of this process: field 19 of /proc/<pid>/task/<tid>/stat (proc(5)). */
+  const threadNiceness = () => fs.readdirSync('/proc/self/task').map((tid) => {
+    const stat = fs.readFileSync(`/proc/self/task/${tid}/stat`, 'utf8');
+    return Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[16]);
+  });
+
+  (process.platform === 'linux' ? test : test.skip)('solver threads run niced; the thread that serves requests keeps its priority', async () => {
+    const before = threadNiceness().filter((n) => n === 10).length;
+    const p = pool({ size: 1 });
+    await p.solve(example());
+    expect(threadNiceness().filter((n) => n === 10).length).toBe(before + 1);
+    expect(os.getPriority()).toBe(0); // this (main) thread, as setpriority(2) reads "process 0" on Linux
   });
 });
 

@@ -10,10 +10,12 @@ export const runtime = 'nodejs';
 /**
  * Coupling, link and (when asked) field and frequency response for two coils (PRODUCT.md, "POST
  * /api/solve"), computed on a worker thread so a heavy solve never blocks other requests. A full
- * queue answers 503 with Retry-After (SolverBusyError carries the header).
+ * queue answers 503 with Retry-After (SolverBusyError carries the header); a person who already has their
+ * share of solves running or waiting gets 429 with Retry-After. A request abandoned while its solve waits
+ * gives up its place in the queue.
  */
 export const POST = route(async (request: Request) => {
-  await requireUser();
+  const user = await requireUser();
   const input = await parseJsonBody(request, solveRequestSchema, MAX_SOLVE_BODY_BYTES);
-  return Response.json(await solveOnServer(input));
+  return Response.json(await solveOnServer(input, { owner: `user:${user.id}`, signal: request.signal }));
 });
