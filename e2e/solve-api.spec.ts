@@ -3,8 +3,10 @@ import { DEMO } from './support/accounts';
 
 /**
  * POST /api/solve against the built app (PRODUCT.md, "POST /api/solve"): signed-in users only, the
- * solver's numbers, 422 with field paths for bad input, and a bounded queue of worker threads that
- * answers a flood with 503 + Retry-After while the rest of the server keeps answering.
+ * solver's numbers, 422 with field paths for bad input, and a bounded pool of worker threads that
+ * answers one person's flood with 429 + Retry-After past their share while the rest of the server keeps
+ * answering. (The queue-wide 503 needs more distinct people than the queue has places; the pool's unit
+ * tests cover it.)
  */
 
 const BASE_URL = process.env.BASE_URL ?? 'http://127.0.0.1:3100';
@@ -97,14 +99,15 @@ test.describe('POST /api/solve', () => {
     await api.dispose();
   });
 
-  test('a flood of heavy solves gets 503 + Retry-After past the queue while /api/health still answers', async ({ playwright }) => {
+  test('one person\'s flood of heavy solves gets 429 + Retry-After past their share while /api/health still answers', async ({ playwright }) => {
     test.setTimeout(180_000);
     const api = await researcher(playwright);
-    // two 200-turn helices at tolerance 1e-9: about 0.4 s each on the 2-core dev machine (measured),
-    // so a queue of 32 behind max(1, CPUs - 1) workers cannot absorb FLOOD of them at once
+    // two 200-turn helices at tolerance 1e-9: about 0.4 s each on the 2-core dev machine (measured)
     const helix = { kind: 'helix', radius: 0.05, turns: 200, length: 0.22, wireDiameter: 0.001 };
     const heavy = { transmitter: helix, receiver: helix, placement: { distance: 0.3, tiltDeg: 30 }, circuit, tolerance: 1e-9 };
-    const FLOOD = 80;
+    const FLOOD = 24;
+    /** SOLVER_PER_OWNER_LIMIT's default (src/lib/solver-pool/config.ts): solves one person may have at once. */
+    const SHARE = 4;
     let settled = 0;
     const flood = Array.from({ length: FLOOD }, () => api.post('/api/solve', { data: heavy, timeout: 170_000 }).then((r) => {
       settled++;
@@ -116,20 +119,24 @@ test.describe('POST /api/solve', () => {
     const health = await api.get('/api/health');
     expect(health.status()).toBe(200);
     expect(Date.now() - started).toBeLessThan(5000);
-    expect(settled).toBeLessThan(FLOOD); // it answered while solves were still queued
 
     const responses = await Promise.all(flood);
-    const busy = responses.filter((r) => r.status() === 503);
+    const refused = responses.filter((r) => r.status() === 429);
     const solved = responses.filter((r) => r.status() === 200);
-    expect(busy.length).toBeGreaterThan(0);
-    expect(solved.length).toBeGreaterThan(0);
-    expect(busy.length + solved.length).toBe(FLOOD);
-    for (const r of busy) {
+    expect(solved.length).toBeGreaterThanOrEqual(SHARE);
+    expect(refused.length).toBeGreaterThan(0);
+    expect(refused.length + solved.length).toBe(FLOOD);
+    for (const r of refused) {
       expect(Number(r.headers()['retry-after'])).toBeGreaterThanOrEqual(1);
-      expect((await r.json()).error).toMatch(/busy/);
+      expect((await r.json()).error).toMatch(new RegExp(`${SHARE} solves running or waiting`));
     }
     const values = new Set(await Promise.all(solved.map(async (r) => (await r.json()).mutualInductance)));
     expect(values.size).toBe(1); // every accepted copy of the request got the same answer
+    expect(settled).toBe(FLOOD);
+
+    // the share is given back: once the flood has drained, the same person solves again
+    const again = await api.post('/api/solve', { data: coaxialLoops });
+    expect(again.status()).toBe(200);
     await api.dispose();
   });
 });
