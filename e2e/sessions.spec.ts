@@ -1,5 +1,6 @@
-import { expect, test, type Browser, type BrowserContext, type Page, type PlaywrightWorkerArgs } from '@playwright/test';
-import { DEMO, apiSignIn, signIn } from './support/accounts';
+import { expect, test, type Page } from '@playwright/test';
+import { signIn } from './support/accounts';
+import { signedInPage, throwawayAccount } from './support/throwaway-accounts';
 
 /**
  * Sessions end when they should: a copy of a session cookie stops working once its owner signs out,
@@ -7,26 +8,8 @@ import { DEMO, apiSignIn, signIn } from './support/accounts';
  * uses a throwaway account made through the admin API, so no demo password or demo session changes.
  */
 
-const BASE_URL = process.env.BASE_URL ?? 'http://127.0.0.1:3100';
 const FIRST_PASSWORD = 'sessions-first-pass-2026';
 const SECOND_PASSWORD = 'sessions-second-pass-2026';
-
-async function throwawayAccount(playwright: PlaywrightWorkerArgs['playwright'], label: string): Promise<{ email: string; password: string }> {
-  const admin = await playwright.request.newContext({ baseURL: BASE_URL });
-  await apiSignIn(admin, DEMO.admin);
-  const email = `sessions-${label}-${Date.now().toString(36)}@couplet.test`;
-  const created = await admin.post('/api/admin/accounts', { data: { email, name: `Sessions ${label}`, siteRole: 'member', password: FIRST_PASSWORD } });
-  expect(created.status()).toBe(201);
-  await admin.dispose();
-  return { email, password: FIRST_PASSWORD };
-}
-
-async function signedInPage(browser: Browser, account: { email: string; password: string }): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext();
-  const page = await context.newPage();
-  await signIn(page, account);
-  return { context, page };
-}
 
 /** Reaches the signed-in app: the dashboard renders and the studies API answers. */
 async function expectSignedIn(page: Page, who: string): Promise<void> {
@@ -47,7 +30,7 @@ async function expectSignedOut(page: Page, who: string): Promise<void> {
 }
 
 test('a copied session cookie stops working when its owner signs out', async ({ browser, playwright }) => {
-  const account = await throwawayAccount(playwright, 'signout');
+  const account = await throwawayAccount(playwright, 'sessions', 'signout', FIRST_PASSWORD);
   const owner = await signedInPage(browser, account);
 
   const copy = await browser.newContext();
@@ -76,7 +59,7 @@ test('a copied session cookie stops working when its owner signs out', async ({ 
 });
 
 test('a password change ends the person\u2019s other sessions; the one that changed it goes on', async ({ browser, playwright }) => {
-  const account = await throwawayAccount(playwright, 'password');
+  const account = await throwawayAccount(playwright, 'sessions', 'password', FIRST_PASSWORD);
   const here = await signedInPage(browser, account);
   const elsewhere = await signedInPage(browser, account);
   await expectSignedIn(here.page, 'this session');

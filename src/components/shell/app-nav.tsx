@@ -5,7 +5,10 @@ import { CoupletMark } from './couplet-mark';
 import { NavLink } from './nav-link';
 import { SignOutButton } from './sign-out-button';
 
-/** The top bar of every signed-in page. Rendered on the server; only the links and sign-out are client leaves. */
+/**
+ * The top bar of every signed-in page. Rendered on the server; only the links and sign-out are client
+ * leaves. The name links to the person's own account page.
+ */
 export function AppNav({ user }: { user: SessionUser }) {
   return (
     <header className="border-b border-ink-200 bg-white">
@@ -29,12 +32,13 @@ export function AppNav({ user }: { user: SessionUser }) {
           </ul>
         </nav>
         <div className="ml-auto flex items-center gap-4">
-          <div className="text-right leading-tight">
-            <p className="text-sm font-medium text-ink-900">{user.name}</p>
-            <p className="text-xs text-ink-500" title="Site role">
+          <Link href="/account" className="-mx-2 rounded-md px-2 py-1 text-right leading-tight transition-colors hover:bg-ink-50">
+            <span className="sr-only">Your account: </span>
+            <span className="block text-sm font-medium text-ink-900">{user.name}</span>
+            <span className="block text-xs text-ink-500" title="Site role">
               {user.siteRole}
-            </p>
-          </div>
+            </span>
+          </Link>
           <SignOutButton />
         </div>
       </div>
