@@ -1,4 +1,4 @@
-import { formatFrequency } from '@/lib/units';
+import { formatFrequency } from '@/lib/units/format';
 import { CAPACITOR_VOLTAGE_CAUTION_V, type CautionId } from './cautions';
 import { formatEngineering, formatScientific } from './format-quantity';
 import type { ExposureLevel } from './solver-jobs';

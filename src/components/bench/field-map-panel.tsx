@@ -4,7 +4,7 @@ import { useEffect, useRef } from 'react';
 import { Panel } from '@/components/ui/panel';
 import { Select } from '@/components/ui/select';
 import { cn } from '@/components/ui/cn';
-import { formatLength } from '@/lib/units';
+import { formatLength } from '@/lib/units/format';
 import type { Population } from '@/physics';
 import type { ChannelView } from '@/hooks/use-solver-worker';
 import type { Vec3 } from './bench-types';

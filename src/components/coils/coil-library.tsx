@@ -8,7 +8,7 @@ import { Skeleton } from '@/components/ui/skeleton';
 import { useStudyCoils } from '@/hooks/use-study-coils';
 import { ApiError, fetchJson } from '@/lib/client/fetch-json';
 import type { Coil } from '@/lib/data/coils';
-import { formatFrequency } from '@/lib/units';
+import { formatFrequency } from '@/lib/units/format';
 import { CoilForm } from './coil-form';
 import { CoilTable } from './coil-table';
 

@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 import { cn } from '@/components/ui/cn';
 import { Table, Td, Th } from '@/components/ui/table';
 import type { Coil } from '@/lib/data/coils';
-import { formatInductance, formatResistance } from '@/lib/units';
+import { formatInductance, formatResistance } from '@/lib/units/format';
 import { describeDimensions, describeMeasured, describeWire, sizeOf, TABLE_DIGITS, turnsOf } from './coil-format';
 
 type SortKey = 'name' | 'kind' | 'size' | 'turns' | 'wire' | 'inductance' | 'dcResistance' | 'acResistance';

@@ -1,4 +1,5 @@
-import { formatQuantity, type QuantityKind } from '@/lib/units';
+import { formatQuantity } from '@/lib/units/format';
+import type { QuantityKind } from '@/lib/units/quantity';
 import type { PointPrediction } from './plan-types';
 
 /** Predicted values a chart or the run sheet can show, with how each is written. */

@@ -1,9 +1,19 @@
 'use client';
 
+import dynamic from 'next/dynamic';
 import { useId, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/page-header';
-import { StudyCreateForm } from './study-create-form';
+import { Skeleton } from '@/components/ui/skeleton';
+
+/**
+ * The form (with zod and react-hook-form, about a sixth of the dashboard's script) loads when someone
+ * opens it, not with every visit to the dashboard.
+ */
+const StudyCreateForm = dynamic(() => import('./study-create-form').then((m) => m.StudyCreateForm), {
+  ssr: false,
+  loading: () => <Skeleton label="Opening the new study form…" rows={4} />,
+});
 
 /**
  * The dashboard heading. For people who may start studies it also holds the "New study" button,

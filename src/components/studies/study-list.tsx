@@ -7,7 +7,7 @@ import { Panel } from '@/components/ui/panel';
 import { Skeleton } from '@/components/ui/skeleton';
 import { useStudies } from '@/hooks/use-studies';
 import type { StudySummary } from '@/lib/data/studies';
-import { formatFrequency } from '@/lib/units';
+import { formatFrequency } from '@/lib/units/format';
 import { RoleBadge } from './role-badge';
 
 function StudyItem({ study }: { study: StudySummary }) {

@@ -6,7 +6,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { loadStudyPage as loadStudy } from '@/lib/auth/study-page';
 import { listPendingInvitations } from '@/lib/data/invitations';
 import { listMembers } from '@/lib/data/members';
-import { formatFrequency } from '@/lib/units';
+import { formatFrequency } from '@/lib/units/format';
 
 type Params = Promise<{ studyId: string }>;
 

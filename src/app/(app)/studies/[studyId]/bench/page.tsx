@@ -7,7 +7,7 @@ import { Skeleton } from '@/components/ui/skeleton';
 import { loadStudyPage } from '@/lib/auth/study-page';
 import { listCoils } from '@/lib/data/coils';
 import { listSetups } from '@/lib/data/setups';
-import { formatFrequency } from '@/lib/units';
+import { formatFrequency } from '@/lib/units/format';
 
 type Params = Promise<{ studyId: string }>;
 
