@@ -27,6 +27,10 @@ const SETTINGS = {
   bench: { dbPort: 3490, dbName: 'couplet_bench', smtpPort: 1027, inboxPort: 1082, s3Port: 4571, appPort: 3190, distDir: '.next-bench' },
   // scripts/load.mjs: the whole service set and a production build of its own
   load: { dbPort: 3491, dbName: 'couplet_load', smtpPort: 1028, inboxPort: 1083, s3Port: 4572, appPort: 3191, distDir: '.next-load' },
+  // e2e/faults.spec.ts: its own MariaDB, S3 stand-in and a second `next start` of the test build
+  // (it never builds), so the spec can kill them without touching the services of `npm test`; the
+  // SMTP and inbox ports are reserved, never opened
+  faults: { dbPort: 3492, dbName: 'couplet_faults', smtpPort: 1029, inboxPort: 1084, s3Port: 4573, appPort: 3192, distDir: '.next-test' },
 };
 
 /** The stand-in's bucket and s3rver's fixed credentials (it accepts no others). */

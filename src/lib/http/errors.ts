@@ -28,3 +28,27 @@ export const notFound = (message = 'Not found.') => new HttpError(404, message);
 export const conflict = (message: string, issues: FieldIssue[] = []) => new HttpError(409, message, issues);
 export const unprocessable = (message: string, issues: FieldIssue[] = []) => new HttpError(422, message, issues);
 export const tooManyRequests = (message: string) => new HttpError(429, message);
+
+/** What a person is told while MariaDB cannot be reached; like the file store's, it says to retry. */
+export const DATABASE_UNREACHABLE_MESSAGE = 'The database is not reachable; try again shortly.';
+
+/**
+ * MariaDB's own "going away" errors: the server is shutting down (ER_SERVER_SHUTDOWN, 1053) or ended
+ * the connection (ER_CONNECTION_KILLED, 1927).
+ */
+const SERVER_GOING_AWAY_ERRNOS = new Set([1053, 1927]);
+
+/**
+ * A 503 with Retry-After when `error` says the database cannot be reached: mysql2 marks `fatal` every
+ * error that ended its connection (refused, reset, timed out, lost mid-query, a command on a closed
+ * connection); MariaDB may say it is going away; Knex gives up waiting for a pooled connection
+ * (KnexTimeoutError). The request's transaction did not commit in any of these cases, or its outcome
+ * is unknown (a connection lost during COMMIT), so the answer never claims what was stored. null for
+ * any other error.
+ */
+export function databaseUnavailable(error: unknown): HttpError | null {
+  if (typeof error !== 'object' || error === null) return null;
+  const e = error as { fatal?: unknown; errno?: unknown; name?: unknown };
+  const down = e.fatal === true || (typeof e.errno === 'number' && SERVER_GOING_AWAY_ERRNOS.has(e.errno)) || e.name === 'KnexTimeoutError';
+  return down ? new HttpError(503, DATABASE_UNREACHABLE_MESSAGE, [], { 'Retry-After': '5' }) : null;
+}

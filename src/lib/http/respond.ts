@@ -2,7 +2,7 @@ import 'server-only';
 import { isDeadlock } from '../db-retry';
 import { ZodError, type ZodType } from 'zod';
 import { readBodyText } from './body-limit';
-import { HttpError, unprocessable, type FieldIssue } from './errors';
+import { databaseUnavailable, HttpError, unprocessable, type FieldIssue } from './errors';
 
 /** Field path of a zod issue as a dotted string ("members.0.email"); the body itself is "(body)". */
 export function issuePath(path: readonly PropertyKey[]): string {
@@ -28,6 +28,13 @@ export function errorResponse(error: unknown): Response {
   }
   if (isDuplicateKey(error)) {
     return Response.json({ error: 'That already exists.', issues: [] }, { status: 409 });
+  }
+  const unavailable = databaseUnavailable(error);
+  if (unavailable) {
+    // the cause for the operator: Knex puts the whole statement (a batch of rows) before the driver's words
+    const { code, errno, message } = error as { code?: string; errno?: number; message?: string };
+    console.error('Database unreachable in route handler:', code ?? errno ?? String(message).slice(-120));
+    return errorResponse(unavailable);
   }
   if (isDeadlock(error)) {
     // still deadlocked after the data layer's retries: a busy moment, not a fault of the request

@@ -33,6 +33,31 @@ describe('errorResponse', () => {
     expect(response.status).toBe(422);
     expect(await response.json()).toEqual({ error: 'Nothing was imported.', issues: [{ path: 'rows.3.raw.rxVoltage', message: 'Not a voltage.' }], report: { total: 3 } });
   });
+  describe('the database out of reach is a 503 with Retry-After that names no internals', () => {
+    // The shapes the drivers give (mysql2 marks every error that ended its connection `fatal`; MariaDB's
+    // ER_SERVER_SHUTDOWN 1053 and ER_CONNECTION_KILLED 1927; Knex's pool timeout), from their sources.
+    const refused = Object.assign(new Error('connect ECONNREFUSED 127.0.0.1:3408'), { code: 'ECONNREFUSED', fatal: true });
+    const lost = Object.assign(new Error('insert into `readings` ... - Connection lost: The server closed the connection.'), { code: 'PROTOCOL_CONNECTION_LOST', fatal: true });
+    const shutdown = Object.assign(new Error('Server shutdown in progress'), { code: 'ER_SERVER_SHUTDOWN', errno: 1053 });
+    const poolTimeout = Object.assign(new Error('Knex: Timeout acquiring a connection. The pool is probably full.'), { name: 'KnexTimeoutError' });
+    test.each([['refused', refused], ['lost mid-query', lost], ['shutting down', shutdown], ['pool timeout', poolTimeout]])('%s', async (_label, error) => {
+      const consoleError = jest.spyOn(console, 'error').mockImplementation(() => {});
+      const response = errorResponse(error);
+      consoleError.mockRestore();
+      expect(response.status).toBe(503);
+      expect(response.headers.get('retry-after')).toBe('5');
+      const body = await response.json();
+      expect(body).toEqual({ error: 'The database is not reachable; try again shortly.', issues: [] });
+      expect(JSON.stringify(body)).not.toMatch(/insert|readings|ECONN|PROTOCOL|127\.0\.0\.1|Knex/);
+    });
+    test('a query error that leaves the connection usable is not mistaken for an outage', () => {
+      const consoleError = jest.spyOn(console, 'error').mockImplementation(() => {});
+      const syntax = Object.assign(new Error('You have an error in your SQL syntax'), { code: 'ER_PARSE_ERROR', errno: 1064, fatal: false });
+      expect(errorResponse(syntax).status).toBe(500);
+      consoleError.mockRestore();
+    });
+  });
+
   test('a duplicate key is a 409', () => {
     expect(errorResponse(Object.assign(new Error('dup'), { code: 'ER_DUP_ENTRY' })).status).toBe(409);
   });
