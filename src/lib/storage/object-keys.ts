@@ -23,6 +23,11 @@ export function attachmentObjectKey(studyId: number, planId: number, uuid: strin
 const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f-\u009f]/g;
 // Bidirectional overrides and zero-width characters: "photo\u202Egpj.exe" displays as "photoexe.jpg".
 const INVISIBLE_FORMATTING = /[\u061c\u200b-\u200f\u202a-\u202e\u2060-\u2064\u2066-\u2069\ufeff]/g;
+// Slashes and backslashes in disguise (fraction and division slashes, fullwidth and small forms, the
+// set-minus and big solidi): some tools turn them into real separators when a file is saved or copied.
+const LOOKALIKE_SEPARATORS = /[\u2044\u2215\u2216\u29f5\u29f8\u29f9\ufe68\uff0f\uff3c]/g;
+// Dots in disguise (one-dot leader, fullwidth full stop), so "．．" cannot pass as an ordinary name.
+const LOOKALIKE_DOTS = /[\u2024\uff0e]/g;
 // Characters Windows refuses in file names; a download named with them would be renamed or fail.
 const RESERVED_CHARACTERS = /[<>:"|?*]/g;
 
@@ -43,12 +48,17 @@ export function appendExtension(name: string, extension: string): string {
 
 /**
  * The name to show and to download under: the last path segment only ("../../etc/passwd" becomes
- * "passwd", "C:\\data\\run 3.s2p" becomes "run 3.s2p"), without control or invisible formatting
- * characters, without leading dots (no hidden files, no ".."), at most 200 characters.
- * Returns "file" when nothing is left.
+ * "passwd", "C:\\data\\run 3.s2p" becomes "run 3.s2p"; look-alike slashes count as separators and
+ * look-alike dots as dots), without control or invisible formatting characters, without leading dots
+ * (no hidden files, no ".."), at most 200 characters. Returns "file" when nothing is left.
  */
 export function sanitizeFileName(raw: string): string {
-  const cleaned = raw.normalize('NFC').replace(CONTROL_CHARACTERS, '').replace(INVISIBLE_FORMATTING, '');
+  const cleaned = raw
+    .normalize('NFC')
+    .replace(CONTROL_CHARACTERS, '')
+    .replace(INVISIBLE_FORMATTING, '')
+    .replace(LOOKALIKE_SEPARATORS, '/')
+    .replace(LOOKALIKE_DOTS, '.');
   const lastSegment = cleaned.split(/[\\/]/).pop() ?? '';
   const name = lastSegment
     .replace(RESERVED_CHARACTERS, '_')

@@ -25,6 +25,13 @@ describe('sanitizeFileName', () => {
     expect(sanitizeFileName('..%2F..%2Fetc')).toBe('%2F..%2Fetc');
   });
 
+  it('counts look-alike slashes as separators and look-alike dots as dots (Unicode code charts: U+2044, U+2215, U+FF0F, U+FF3C, U+2024, U+FF0E)', () => {
+    expect(sanitizeFileName('\u2024\u2024\u2215\u2024\u2024\u2215studies\u22152\u2215x.s2p')).toBe('x.s2p');
+    expect(sanitizeFileName('\uff0e\uff0e\uff0f\uff0e\uff0e\uff0fx.s2p')).toBe('x.s2p');
+    expect(sanitizeFileName('..\uff3c..\u2044run 3.s2p')).toBe('run 3.s2p');
+    expect(sanitizeFileName('\uff0ehidden')).toBe('hidden');
+  });
+
   it('leaves nothing that is only dots, slashes or blanks; falls back to "file"', () => {
     for (const raw of ['', '..', '.', '../', '..\\..\\', '   ', '\u0000\u0001', '/']) expect(sanitizeFileName(raw)).toBe('file');
   });
