@@ -16,13 +16,13 @@ export class RawLiteral {
   constructor(readonly text: string) {}
 }
 
-const RAW_NUMBERS = ['1e309', '-1e309', '1e999999999', '-1e-999999999', '123456789012345678901234567890', 'NaN', 'Infinity', '-Infinity', '0x10', '01', '1.', '.5', '+1', '1e', '-'];
+export const RAW_NUMBERS = ['1e309', '-1e309', '1e999999999', '-1e-999999999', '123456789012345678901234567890', 'NaN', 'Infinity', '-Infinity', '0x10', '01', '1.', '.5', '+1', '1e', '-'];
 
 /** Numbers at the edges of doubles and of 32-bit database columns. */
-const edgeNumbers = fc.constantFrom(0, -0, -1, 0.5, 1e-320, Number.MIN_VALUE, Number.MAX_VALUE, -Number.MAX_VALUE, 2 ** 31, 2 ** 32, 2 ** 53 + 2, 1e21, -1e21, 1e300);
+export const edgeNumbers = fc.constantFrom(0, -0, -1, 0.5, 1e-320, Number.MIN_VALUE, Number.MAX_VALUE, -Number.MAX_VALUE, 2 ** 31, 2 ** 32, 2 ** 53 + 2, 1e21, -1e21, 1e300);
 
 /** Text that has broken parsers, databases and layouts: numbers as text, quotes, RTL, emoji, NUL, lone surrogates. */
-const edgeStrings = fc.oneof(
+export const edgeStrings = fc.oneof(
   fc.constantFrom(
     '', ' ', '\t\n', 'NaN', 'Infinity', '-Infinity', '1e309', '0x1f', 'null', 'true', '[]', '{}', '"', "'", '`', '\\', '\\"', "O'Brien \"quoted\"",
     '\u202eevil\u202c', '\u0645\u0631\u062d\u0628\u0627 \u05e9\u05dc\u05d5\u05dd', '\ud83e\uddf2\ud83d\udc69\u200d\ud83d\udd2c', '\u0000', 'a\u0000b', '\ufeff', '\u2028\u2029',
@@ -103,7 +103,7 @@ export function mutatedBody(valid: Record<string, Json>): fc.Arbitrary<Json> {
 }
 
 /** Text a free-text field may legitimately hold, and what the database and audit JSON must survive. */
-const TEXT_SAMPLES = ['x\ud800y', '\udfff', '\ud83e\uddf2 coil', '\u202eright-to-left\u202c', '\u0645\u0631\u062d\u0628\u0627', 'a\u0000b', 'O\'Brien "quoted" `tick`', 'back\\slash', 'line\u2028sep', '\ufeffbom'];
+export const TEXT_SAMPLES = ['x\ud800y', '\udfff', '\ud83e\uddf2 coil', '\u202eright-to-left\u202c', '\u0645\u0631\u062d\u0628\u0627', 'a\u0000b', 'O\'Brien "quoted" `tick`', 'back\\slash', 'line\u2028sep', '\ufeffbom'];
 
 /** A valid body with one of its text values (at any depth) replaced by awkward but plausible text. */
 export function awkwardTextBody(valid: Record<string, Json>): fc.Arbitrary<WireBody> {

@@ -19,8 +19,10 @@ export interface JoinState {
 
 const SOMETHING_WENT_WRONG = 'Something went wrong on our side. Try again in a moment.';
 
-const text = (formData: FormData, key: string) => {
-  const value = formData.get(key);
+// A server action takes its arguments as the client sent them, so the form may be anything: what is
+// not a FormData counts as an empty form, and a file where text belongs as an empty field.
+const text = (formData: unknown, key: string) => {
+  const value = formData instanceof FormData ? formData.get(key) : null;
   return typeof value === 'string' ? value : '';
 };
 
