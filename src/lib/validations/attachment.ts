@@ -13,8 +13,14 @@ const emptyToNull = (value: unknown) => (value === undefined || value === null |
  */
 export const attachmentFieldsSchema = z.object({
   kind: z.enum(ATTACHMENT_KINDS, { error: 'Choose photo or instrument file.' }),
+  // Form text must be plain decimal digits: Number() would also read " 12 ", "1.2e1" and "0xc" as
+  // point 12. Callers inside the server pass numbers.
   pointId: z.preprocess(
-    (value) => (emptyToNull(value) === null ? null : Number(value)),
+    (value) => {
+      if (emptyToNull(value) === null) return null;
+      if (typeof value === 'number') return value;
+      return typeof value === 'string' && /^[0-9]{1,15}$/.test(value) ? Number(value) : NaN;
+    },
     z.number({ error: 'Choose a point of this plan.' }).int('Choose a point of this plan.').positive('Choose a point of this plan.').nullable(),
   ),
   caption: z.preprocess(
