@@ -1,8 +1,8 @@
 import 'server-only';
-import { getServerSession } from 'next-auth';
+import { decode } from 'next-auth/jwt';
+import { cookies } from 'next/headers';
 import { cache } from 'react';
 import { unauthorized } from '../http/errors';
-import { authOptions } from './options';
 import type { SessionUser } from './session-user';
 import { findActiveSessionUser } from './sessions';
 
@@ -19,13 +19,46 @@ export interface CurrentSession {
  * out too. Cached per request.
  */
 const getCurrentSession = cache(async (): Promise<CurrentSession | null> => {
-  const session = await getServerSession(authOptions);
-  const id = Number(session?.user?.id);
-  const sessionId = session?.sid;
-  if (!session || !Number.isInteger(id) || id <= 0 || typeof sessionId !== 'string' || sessionId === '') return null;
+  const token = await sessionToken();
+  const id = Number(token?.uid);
+  const sessionId = token?.sid;
+  if (!token || !Number.isInteger(id) || id <= 0 || typeof sessionId !== 'string' || sessionId === '') return null;
   const user = await findActiveSessionUser(id, sessionId);
   return user ? { user, sessionId } : null;
 });
+
+/**
+ * The session cookie's name, as next-auth sets it: with the __Secure- prefix when the app is served
+ * over https (its useSecureCookies default).
+ */
+function sessionCookieName(): string {
+  return process.env.NEXTAUTH_URL?.startsWith('https://') ? '__Secure-next-auth.session-token' : 'next-auth.session-token';
+}
+
+/**
+ * The claims of this request's session cookie, checked (signature, encryption, expiry) by next-auth's
+ * own decoder; null when absent or not valid. This is what next-auth's getServerSession reads, without
+ * the rest of its session handler: in a server component or route handler it re-encodes a fresh
+ * cookie and a CSRF token that it cannot send, work that cost every request here. A cookie too long
+ * for one header is split by next-auth into "<name>.0", "<name>.1", …, joined again in order.
+ */
+async function sessionToken(): Promise<{ uid?: unknown; sid?: unknown } | null> {
+  const jar = await cookies();
+  const name = sessionCookieName();
+  let value = jar.get(name)?.value;
+  if (!value) {
+    const chunks = jar.getAll().filter((c) => c.name.startsWith(`${name}.`) && /^\d+$/.test(c.name.slice(name.length + 1)));
+    value = chunks.sort((a, b) => Number(a.name.slice(name.length + 1)) - Number(b.name.slice(name.length + 1))).map((c) => c.value).join('');
+  }
+  if (!value) return null;
+  const secret = process.env.NEXTAUTH_SECRET;
+  if (!secret) throw new Error('NEXTAUTH_SECRET is not set');
+  try {
+    return await decode({ token: value, secret });
+  } catch {
+    return null; // tampered, expired, or signed with another secret: nobody is signed in
+  }
+}
 
 /** The signed-in user for this request, or null. */
 export const getSessionUser = cache(async (): Promise<SessionUser | null> => (await getCurrentSession())?.user ?? null);
