@@ -114,12 +114,9 @@ export class SolverPool {
 
   /** Runs a job on a free worker, queues it, or refuses it when the queue or the owner's share is full. */
   solve(job: SolveJob, { owner, signal }: SolveOptions = {}): Promise<SolveJobResult> {
-    if (this.closed) return Promise.reject(new SolverClosedError());
     if (signal?.aborted) return Promise.reject(abortError());
-    const limit = this.options.perOwnerLimit;
-    if (owner !== undefined && limit !== undefined && (this.ownerJobs.get(ownerKey(owner)) ?? 0) >= limit) {
-      return Promise.reject(new SolverQuotaError(this.retryAfterSeconds(), limit));
-    }
+    const refused = this.refusal(owner);
+    if (refused) return Promise.reject(refused);
     return new Promise<SolveJobResult>((resolve, reject) => {
       const entry: Job = {
         id: this.nextId++,
@@ -132,14 +129,26 @@ export class SolverPool {
       };
       const slot = this.freeSlot();
       if (slot) this.dispatch(slot, entry);
-      else if (this.queue.length < this.options.queueLimit) this.enqueue(entry, signal);
-      else {
-        reject(new SolverBusyError(this.retryAfterSeconds()));
-        return;
-      }
+      else this.enqueue(entry, signal);
       const key = ownerKey(owner);
       this.ownerJobs.set(key, (this.ownerJobs.get(key) ?? 0) + 1);
     });
+  }
+
+  /**
+   * Why a job of `owner` would be refused now (closed pool, the owner's share taken, every worker busy
+   * and the queue full), or null when it would run or wait. Callers may ask before doing the work of
+   * reading a request, so a flood is turned away cheaply; solve() asks again.
+   */
+  refusal(owner?: string): Error | null {
+    if (this.closed) return new SolverClosedError();
+    const limit = this.options.perOwnerLimit;
+    if (owner !== undefined && limit !== undefined && (this.ownerJobs.get(ownerKey(owner)) ?? 0) >= limit) {
+      return new SolverQuotaError(this.retryAfterSeconds(), limit);
+    }
+    const idle = [...this.slots].some((s) => !s.current) || this.slots.size < this.options.size;
+    if (!idle && this.queue.length >= this.options.queueLimit) return new SolverBusyError(this.retryAfterSeconds());
+    return null;
   }
 
   /** Jobs running and waiting, for monitoring and tests. */
@@ -207,10 +216,14 @@ export class SolverPool {
     return entry;
   }
 
-  /** Seconds until a place in the queue is likely free: the queue drained at the average run time. */
+  /**
+   * Seconds until a place in the queue is likely free (the queue drained at the average run time), plus
+   * a random part of up to half that again, so clients refused in the same moment do not all come back
+   * in the same moment.
+   */
   private retryAfterSeconds(): number {
-    const seconds = ((this.queue.length + 1) * this.averageRunMs) / this.options.size / 1000;
-    return Math.max(1, Math.ceil(seconds));
+    const seconds = Math.max(1, Math.ceil(((this.queue.length + 1) * this.averageRunMs) / this.options.size / 1000));
+    return seconds + Math.floor(Math.random() * (Math.ceil(seconds / 2) + 1));
   }
 
   private freeSlot(): Slot | null {

@@ -137,6 +137,31 @@ describe('sharing between owners', () => {
     expect(p.stats()).toEqual({ workers: 1, running: 0, queued: 0 });
   });
 
+  test('refusal() tells in advance what solve() would refuse, and nothing else', async () => {
+    const p = pool({ size: 1, queueLimit: 1, perOwnerLimit: 1 });
+    expect(p.refusal('user:1')).toBeNull();
+    const running = p.solve(example(), { owner: 'user:1' });
+    expect(p.refusal('user:1')).toBeInstanceOf(SolverQuotaError);
+    expect(p.refusal('user:2')).toBeNull(); // the one worker is busy, but a place in the queue is free
+    const waiting = p.solve(example(), { owner: 'user:2' });
+    expect(p.refusal('user:3')).toBeInstanceOf(SolverBusyError);
+    expect(await rejection(p.solve(example(), { owner: 'user:3' }))).toBeInstanceOf(SolverBusyError);
+    await Promise.all([running, waiting]);
+    expect(p.refusal('user:1')).toBeNull();
+  });
+
+  test('Retry-After varies between refusals in the same moment, so refused clients do not return together', async () => {
+    const p = pool({ size: 1, queueLimit: 0, perOwnerLimit: 8 });
+    const running = p.solve(example());
+    await running; // an average run time to estimate from
+    const busy = rejection(p.solve(heavy())); // stopped by close() below
+    const seconds = Array.from({ length: 60 }, () => (p.refusal() as SolverBusyError).retryAfterSeconds);
+    expect(Math.min(...seconds)).toBeGreaterThanOrEqual(1);
+    expect(new Set(seconds).size).toBeGreaterThan(1);
+    await p.close();
+    await busy;
+  });
+
   test('a failed or timed-out job gives its share back too', async () => {
     const p = pool({ size: 1, queueLimit: 4, perOwnerLimit: 1, timeoutMs: 300 });
     expect(await rejection(p.solve(heavy(), { owner: 'user:1' }))).toBeInstanceOf(SolverTimeoutError);

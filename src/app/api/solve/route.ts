@@ -1,6 +1,6 @@
 import { requireUser } from '@/lib/auth/session';
 import { parseJsonBody, route } from '@/lib/http/respond';
-import { solveOnServer } from '@/lib/solver-pool/server-pool';
+import { serverSolverPool, solveOnServer } from '@/lib/solver-pool/server-pool';
 import { MAX_SOLVE_BODY_BYTES, solveRequestSchema } from '@/lib/validations/solve';
 
 export const dynamic = 'force-dynamic';
@@ -16,6 +16,10 @@ export const runtime = 'nodejs';
  */
 export const POST = route(async (request: Request) => {
   const user = await requireUser();
+  const owner = `user:${user.id}`;
+  // turned away before the body is read, so a flood costs as little as it can
+  const refused = serverSolverPool().refusal(owner);
+  if (refused) throw refused;
   const input = await parseJsonBody(request, solveRequestSchema, MAX_SOLVE_BODY_BYTES);
-  return Response.json(await solveOnServer(input, { owner: `user:${user.id}`, signal: request.signal }));
+  return Response.json(await solveOnServer(input, { owner, signal: request.signal }));
 });
