@@ -10,11 +10,11 @@ import {
   HeadBucketCommand,
   ListObjectsV2Command,
   PutObjectCommand,
-  S3Client,
 } from '@aws-sdk/client-s3';
 import { attachmentObjectKey } from '../../src/lib/storage/object-keys';
 import { deleteObject, putObject, setObjectStoreConfig } from '../../src/lib/storage/object-store';
 import { db, SEEDED, sessionUserByEmail, studyIdByName } from '../support/database';
+import { testBucketClient } from '../support/test-bucket';
 
 /**
  * `npm run backup` and `npm run restore` (scripts/backup.mjs, scripts/restore.mjs) run as child
@@ -47,14 +47,7 @@ const CAPTION = "Jig leaning 4° (tray 3; Maren's — 🌱";
 
 const sha256 = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 
-const s3 = new S3Client({
-  endpoint: process.env.S3_ENDPOINT,
-  region: process.env.S3_REGION,
-  credentials: { accessKeyId: process.env.S3_ACCESS_KEY_ID!, secretAccessKey: process.env.S3_SECRET_ACCESS_KEY! },
-  forcePathStyle: true,
-  requestChecksumCalculation: 'WHEN_REQUIRED',
-  responseChecksumValidation: 'WHEN_REQUIRED',
-});
+const s3 = testBucketClient;
 
 interface RunResult {
   code: number;

@@ -13,9 +13,11 @@
  * form has), never SQL, a stack or a path; a refused upload leaves every table and the bucket's listing
  * as they were, and an accepted one adds exactly the object its row names. Replay with FUZZ_SEED.
  */
-import { DeleteObjectCommand, ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand } from '@aws-sdk/client-s3';
 import fc from 'fast-check';
 import type { SessionUser } from '@/lib/auth/session-user';
+import { actAs } from '../../support/acting-user';
+import { bucketObjects, testBucketClient } from '../../support/test-bucket';
 import { setPlanSolverPool } from '@/lib/data/plan-predictions';
 import { createSourceWorker } from '@/lib/solver-pool/source-worker';
 import { SolverPool } from '@/lib/solver-pool/solver-pool';
@@ -28,14 +30,7 @@ import { db } from '../../support/database';
 import { databaseState, edgeNumbers, edgeStrings, expectWellFormed, FUZZ_RUNS, FUZZ_SEED, RAW_NUMBERS, readAnswer, TEXT_SAMPLES, type Answer } from '../../support/fuzz-json';
 import { baseline, callRoute, createFuzzStudy, removeSince, type Baseline, type FuzzStudy } from '../../support/fuzz-fixtures';
 
-let mockActor: SessionUser | null = null;
-jest.mock('@/lib/auth/session', () => ({
-  getSessionUser: async () => mockActor,
-  requireUser: async () => {
-    if (!mockActor) throw new Error('no actor set');
-    return mockActor;
-  },
-}));
+jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
 
 // Touchstone v1 two-port export: option line "# <unit> S <format> R <reference ohms>", one line per frequency.
 const TOUCHSTONE = Buffer.from('! pad to probe, VNA\n# MHz S RI R 50\n6.78 0.10 -0.20 0.80 0.05 0.80 0.05 0.12 -0.18\n');
@@ -136,29 +131,14 @@ function expectNoInternals(answer: Answer, shown: string): void {
   for (const pattern of INTERNALS) if (pattern.test(texts)) throw new Error(`${answer.status} for ${shown} shows internals (${pattern}): ${texts}`);
 }
 
-const s3 = new S3Client({
-  endpoint: process.env.S3_ENDPOINT,
-  region: process.env.S3_REGION,
-  credentials: { accessKeyId: process.env.S3_ACCESS_KEY_ID!, secretAccessKey: process.env.S3_SECRET_ACCESS_KEY! },
-  forcePathStyle: true,
-  requestChecksumCalculation: 'WHEN_REQUIRED',
-  responseChecksumValidation: 'WHEN_REQUIRED',
-});
 
 /** Every object in the bucket as "key size etag", sorted: a stored or lost object shows. */
 async function bucketState(prefix?: string): Promise<string[]> {
-  const objects: string[] = [];
-  let token: string | undefined;
-  do {
-    const page = await s3.send(new ListObjectsV2Command({ Bucket: process.env.S3_BUCKET!, Prefix: prefix, ContinuationToken: token }));
-    for (const o of page.Contents ?? []) objects.push(`${o.Key} ${o.Size} ${o.ETag}`);
-    token = page.IsTruncated ? page.NextContinuationToken : undefined;
-  } while (token);
-  return objects.sort();
+  return [...(await bucketObjects(prefix))].map(([key, sizeAndTag]) => `${key} ${sizeAndTag}`).sort();
 }
 
 const setActor = (user: SessionUser) => {
-  mockActor = user;
+  actAs(user);
 };
 
 // ---------------------------------------------------------------------------------------------
@@ -216,6 +196,15 @@ const op: fc.Arbitrary<Op> = fc.oneof(
   fc.constant<Op>({ op: 'many' }),
 );
 
+/**
+ * `part` replaces the first part called `name` only: after "many" there are thousands of captions,
+ * and a megabyte of text in each would make the test, not the server, spend a minute writing the body.
+ */
+function replaceFirst(parts: Part[], name: string, part: (p: Part) => Part): Part[] {
+  const at = parts.findIndex((p) => p.name === name);
+  return at < 0 ? parts : parts.map((p, i) => (i === at ? part(p) : p));
+}
+
 function applyOps(valid: Part[], ops: Op[]): Part[] {
   let parts = valid.map((p) => ({ ...p }));
   for (const o of ops) {
@@ -224,8 +213,8 @@ function applyOps(valid: Part[], ops: Op[]): Part[] {
     // Ten thousand small parts: the parser's cost per part, and a caption sent again and again.
     else if (o.op === 'many') parts = [...parts, ...Array.from({ length: 10_000 }, (_, i) => ({ name: i % 2 ? 'caption' : `x${i}`, value: String(i) }))];
     else if (o.op === 'remove') parts = parts.filter((p) => p.name !== o.field);
-    else if (o.op === 'text') parts = parts.map((p) => (p.name === o.field ? { name: p.name, value: o.value } : p));
-    else if (o.op === 'file') parts = parts.map((p) => (p.name === o.field ? { name: p.name, ...o.file } : p));
+    else if (o.op === 'text') parts = replaceFirst(parts, o.field, (p) => ({ name: p.name, value: o.value }));
+    else if (o.op === 'file') parts = replaceFirst(parts, o.field, (p) => ({ name: p.name, ...o.file }));
     else if (o.op === 'extra') parts = [...parts, { name: o.field, ...o.part }];
     else parts = parts.map((p) => (p.name === o.field ? { ...p, name: o.name } : p));
   }
@@ -270,12 +259,12 @@ describe(`form routes refuse hostile multipart bodies with 4xx and field paths (
   afterAll(async () => {
     // The accepted uploads' objects go with their rows.
     const keys = fx ? (await bucketState(`studies/${fx.studyId}/`)).map((o) => o.split(' ')[0]) : [];
-    for (const key of keys) await s3.send(new DeleteObjectCommand({ Bucket: process.env.S3_BUCKET!, Key: key }));
+    for (const key of keys) await testBucketClient.send(new DeleteObjectCommand({ Bucket: process.env.S3_BUCKET!, Key: key }));
     await removeSince(base);
     setPlanSolverPool(null);
     await pool.close();
     setObjectStoreConfig(null);
-    s3.destroy();
+    testBucketClient.destroy();
     await db.destroy();
   });
 

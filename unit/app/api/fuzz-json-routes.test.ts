@@ -6,6 +6,7 @@
  * leaves every table unchanged. Replay a failure with FUZZ_SEED (in the test names) and FUZZ_RUNS.
  */
 import type { SessionUser } from '@/lib/auth/session-user';
+import { actAs } from '../../support/acting-user';
 import { createAccount } from '@/lib/data/accounts';
 import { setPlanSolverPool } from '@/lib/data/plan-predictions';
 import { DEFAULT_MAX_BODY_BYTES } from '@/lib/http/respond';
@@ -29,14 +30,7 @@ import {
   baseline, callRoute, createFuzzStudy, FUZZ_CIRCUIT, FUZZ_HELIX, fuzzIdParams, fuzzJsonRoute, fuzzQueryRoute, removeSince, type Baseline, type FuzzStudy, type JsonRouteCase,
 } from '../../support/fuzz-fixtures';
 
-let mockActor: SessionUser | null = null;
-jest.mock('@/lib/auth/session', () => ({
-  getSessionUser: async () => mockActor,
-  requireUser: async () => {
-    if (!mockActor) throw new Error('no actor set');
-    return mockActor;
-  },
-}));
+jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
 
 // The server's pool starts its worker from a bundled chunk jest cannot load; solve on workers from the sources.
 let mockSolvePool: SolverPool | null = null;
@@ -46,7 +40,7 @@ jest.mock('@/lib/solver-pool/server-pool', () => ({
 }));
 
 const setActor = (user: SessionUser) => {
-  mockActor = user;
+  actAs(user);
 };
 
 describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=${FUZZ_SEED})`, () => {

@@ -5,6 +5,7 @@
  */
 import fc from 'fast-check';
 import type { SessionUser } from '@/lib/auth/session-user';
+import { actAs } from '../../support/acting-user';
 import { setPlanSolverPool } from '@/lib/data/plan-predictions';
 import { DEFAULT_MAX_BODY_BYTES } from '@/lib/http/respond';
 import { MEASUREMENT_METHODS, METHOD_SPECS } from '@/physics/measurement/methods';
@@ -29,17 +30,10 @@ import { db } from '../../support/database';
 import { awkwardTextBody, FUZZ_SEED } from '../../support/fuzz-json';
 import { baseline, createFuzzStudy, fuzzIdParams, fuzzJsonRoute, fuzzQueryRoute, removeSince, type Baseline, type FuzzStudy, type JsonRouteCase } from '../../support/fuzz-fixtures';
 
-let mockActor: SessionUser | null = null;
-jest.mock('@/lib/auth/session', () => ({
-  getSessionUser: async () => mockActor,
-  requireUser: async () => {
-    if (!mockActor) throw new Error('no actor set');
-    return mockActor;
-  },
-}));
+jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
 
 const setActor = (user: SessionUser) => {
-  mockActor = user;
+  actAs(user);
 };
 
 /** The import reads the file's text inside JSON: room for the file, its escaping and the mapping. */

@@ -1,5 +1,6 @@
-import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import type { SessionUser } from '@/lib/auth/session-user';
+import { actAs } from '../../support/acting-user';
+import { bucketObjects, testBucketClient } from '../../support/test-bucket';
 import { createAttachment, type Attachment } from '@/lib/data/attachments';
 import { MAX_FILE_NAME_LENGTH } from '@/lib/storage/object-keys';
 import { readObject, setObjectStoreConfig } from '@/lib/storage/object-store';
@@ -16,14 +17,7 @@ import { db, SEEDED, sessionUserByEmail, studyIdByName } from '../../support/dat
  * object-keys.test.ts covers sanitizeFileName itself; this is the whole path through the upload.
  */
 
-let mockActor: SessionUser | null = null;
-jest.mock('@/lib/auth/session', () => ({
-  getSessionUser: async () => mockActor,
-  requireUser: async () => {
-    if (!mockActor) throw new Error('no actor set');
-    return mockActor;
-  },
-}));
+jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
 
 // Touchstone v1 two-port export: option line "# <unit> S <format> R <reference ohms>", one line per frequency.
 const TOUCHSTONE = Buffer.from('! pad to probe, VNA\n# MHz S RI R 50\n6.78 0.10 -0.20 0.80 0.05 0.80 0.05 0.12 -0.18\n');
@@ -34,26 +28,7 @@ const SEPARATORS = /[/\\]/;
 const CONTROLS = /[\u0000-\u001f\u007f-\u009f]/;
 const INVISIBLE = /[\u061c\u200b-\u200f\u202a-\u202e\u2060-\u2064\u2066-\u2069\ufeff]/;
 
-const s3 = new S3Client({
-  endpoint: process.env.S3_ENDPOINT,
-  region: process.env.S3_REGION,
-  credentials: { accessKeyId: process.env.S3_ACCESS_KEY_ID!, secretAccessKey: process.env.S3_SECRET_ACCESS_KEY! },
-  forcePathStyle: true,
-  requestChecksumCalculation: 'WHEN_REQUIRED',
-  responseChecksumValidation: 'WHEN_REQUIRED',
-});
 
-/** Every key of the bucket with its ETag and size, so a changed object shows as well as a new one. */
-async function bucketListing(): Promise<Map<string, string>> {
-  const listing = new Map<string, string>();
-  let token: string | undefined;
-  do {
-    const page = await s3.send(new ListObjectsV2Command({ Bucket: process.env.S3_BUCKET, ContinuationToken: token }));
-    for (const o of page.Contents ?? []) listing.set(o.Key!, `${o.ETag} ${o.Size}`);
-    token = page.IsTruncated ? page.NextContinuationToken : undefined;
-  } while (token);
-  return listing;
-}
 
 /** The kept name is one plain segment: nothing that climbs, hides, breaks a header or overflows the column. */
 function expectPlainName(name: string): void {
@@ -96,11 +71,11 @@ describe('object keys stay inside their study and plan, whatever the file is cal
     padId = await studyIdByName(SEEDED.padStudy);
     railId = await studyIdByName(SEEDED.railStudy);
     planId = (await db('sweep_plans').where({ study_id: padId, name: 'Probe tilt x depth' }).first('id')).id;
-    before = await bucketListing();
+    before = await bucketObjects();
   });
 
   afterAll(async () => {
-    s3.destroy();
+    testBucketClient.destroy();
     setObjectStoreConfig(null); // closes the app's S3 client's sockets
     await db.destroy();
   });
@@ -156,7 +131,7 @@ describe('object keys stay inside their study and plan, whatever the file is cal
   });
 
   it('through the upload route: names sent raw in the multipart body, quoted and RFC 5987-encoded', async () => {
-    mockActor = student;
+    actAs(student);
     const url = `http://127.0.0.1/api/studies/${padId}/plans/${planId}/attachments`;
     const params = { params: Promise.resolve({ studyId: String(padId), planId: String(planId) }) };
     const disposition = (parameters: string | Buffer) => Buffer.concat([Buffer.from('Content-Disposition: form-data; name="file"; '), Buffer.from(parameters)]);
@@ -185,7 +160,7 @@ describe('object keys stay inside their study and plan, whatever the file is cal
   });
 
   it('ids in the path that are not plain ids are refused (404) before anything is stored', async () => {
-    mockActor = student;
+    actAs(student);
     for (const [studyId, plan] of [[`${padId}/../${railId}`, String(planId)], [String(padId), `${planId}%2F..`], ['..', '..'], [`${padId}\u0000`, String(planId)]]) {
       const request = multipartRequest(`http://127.0.0.1/api/studies/x/plans/y/attachments`, Buffer.from('Content-Disposition: form-data; name="file"; filename="x.s2p"'));
       const response = await uploadRoute.POST(request, { params: Promise.resolve({ studyId, planId: plan }) });
@@ -194,7 +169,7 @@ describe('object keys stay inside their study and plan, whatever the file is cal
   });
 
   it('the bucket gained exactly the uploads\' objects, all under this plan; nothing else appeared or changed', async () => {
-    const after = await bucketListing();
+    const after = await bucketObjects();
     const added = [...after.keys()].filter((key) => !before.has(key)).sort();
     const rowKeys = (await db('attachments').whereIn('id', created.map((a) => a.id)).pluck('object_key')).sort();
     expect(rowKeys).toHaveLength(created.length);

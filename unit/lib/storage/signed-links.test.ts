@@ -1,5 +1,6 @@
 import { createHash, createHmac } from 'node:crypto';
 import type { SessionUser } from '@/lib/auth/session-user';
+import { actAs } from '../../support/acting-user';
 import { attachmentDownloadUrl, createAttachment, DOWNLOAD_LINK_SECONDS } from '@/lib/data/attachments';
 import { attachmentObjectKey } from '@/lib/storage/object-keys';
 import { deleteObject, putObject, setObjectStoreConfig, signedDownloadUrl } from '@/lib/storage/object-store';
@@ -17,14 +18,7 @@ import { db, SEEDED, sessionUserByEmail, studyIdByName } from '../../support/dat
  * Amazon S3 API Reference) — the check a real S3 service makes before serving the object.
  */
 
-let mockActor: SessionUser | null = null;
-jest.mock('@/lib/auth/session', () => ({
-  getSessionUser: async () => mockActor,
-  requireUser: async () => {
-    if (!mockActor) throw new Error('no actor set');
-    return mockActor;
-  },
-}));
+jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
 
 // Touchstone v1 two-port export: option line "# <unit> S <format> R <reference ohms>", one line per frequency.
 const TOUCHSTONE = Buffer.from('! pad to probe, VNA\n# MHz S RI R 50\n6.78 0.10 -0.20 0.80 0.05 0.80 0.05 0.12 -0.18\n');
@@ -184,7 +178,7 @@ describe('signed download links', () => {
   });
 
   it('the download route redirects to a fresh short link and forbids caching the redirect', async () => {
-    mockActor = supervisor;
+    actAs(supervisor);
     const request = new Request(`http://127.0.0.1/api/studies/${padId}/attachments/${attachmentId}`);
     const response = await downloadRoute.GET(request, { params: Promise.resolve({ studyId: String(padId), attachmentId: String(attachmentId) }) });
     expect(response.status).toBe(302);
@@ -202,7 +196,7 @@ describe('signed download links', () => {
 
   it('the route answers 404, with no link, for an attachment id asked for under another study', async () => {
     // The site admin may see both studies; the id still belongs to only one of them.
-    mockActor = admin;
+    actAs(admin);
     const request = new Request(`http://127.0.0.1/api/studies/${railId}/attachments/${attachmentId}`);
     const response = await downloadRoute.GET(request, { params: Promise.resolve({ studyId: String(railId), attachmentId: String(attachmentId) }) });
     expect(response.status).toBe(404);
