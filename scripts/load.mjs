@@ -31,7 +31,7 @@
  *
  * Before part 1, one connection alone for 10 s gives the cost of a request without queueing.
  *
- * Usage: node scripts/load.mjs [--seconds N] [--capacity-seconds N] [--flood-seconds N] [--runaway-seconds N] [--baseline-seconds N]
+ * Usage: node scripts/load.mjs [--seconds N] [--capacity-seconds N] [--flood-seconds N] [--runaway-seconds N] [--baseline-seconds N] [--phases 1,2,3,3b,4]
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -58,6 +58,8 @@ const CAPACITY_SECONDS = arg('--capacity-seconds', 20);
 const FLOOD_SECONDS = arg('--flood-seconds', 30);
 const RUNAWAY_SECONDS = arg('--runaway-seconds', 15);
 const BASELINE_SECONDS = arg('--baseline-seconds', 10);
+/** Which parts to run (--phases 1,2,3,3b,4); all by default. */
+const PHASES = new Set((process.argv.includes('--phases') ? process.argv[process.argv.indexOf('--phases') + 1] : '1,2,3,3b,4').split(','));
 const USERS = 50;
 const READ_CONNECTIONS = 50;
 /** Views a second each reading user asks for (autocannon's connectionRate; it takes whole numbers). */
@@ -97,11 +99,14 @@ class Tally {
     this.latencies = [];
     /** the status of each latency, in the same order */
     this.order = [];
+    this.started = [];
     this.statuses = new Map();
   }
-  add(status, ms) {
+  add(status, ms, at = performance.now()) {
     this.latencies.push(ms);
     this.order.push(status);
+    /** when each request started [ms, performance.now() clock] */
+    this.started.push(at - ms);
     this.statuses.set(status, (this.statuses.get(status) ?? 0) + 1);
   }
   get count() {
@@ -357,6 +362,9 @@ async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title 
   console.log(`solved (200) latency ms: p50 ${fmt(percentile(solvedLatencies, 50))}, p99 ${fmt(percentile(solvedLatencies, 99))}; ${((s.statuses.get(200) ?? 0) / seconds).toFixed(1)} solves/s`);
   console.log(`refusals (429/503): ${(refusedLatencies.length / seconds).toFixed(1)}/s, answered in p50 ${fmt(percentile(refusedLatencies, 50))} ms, p99 ${fmt(percentile(refusedLatencies, 99))} ms`);
   console.log(`dashboard during the flood: ${d.count} requests (${(d.count / seconds).toFixed(1)}/s), p50 ${fmt(ds.p50)} ms, p90 ${fmt(ds.p90)} ms, p99 ${fmt(ds.p99)} ms, non-2xx ${d.non2xx}, errors ${sumErrors(readResults)}`);
+  // when the slowest reads started, from the flood's start: a burst shows as a cluster of times
+  const slowest = d.latencies.map((ms, i) => [ms, (d.started[i] - started) / 1000]).sort((a, b) => b[0] - a[0]).slice(0, Math.max(1, Math.ceil(d.count / 100)));
+  console.log(`slowest 1 % of those reads (ms @ s after the flood began): ${slowest.map(([ms, at]) => `${fmt(ms)} @ ${at.toFixed(1)}`).join(', ')}`);
   if (polite) console.log(`target dashboard p99 < ${FLOOD_P99_TARGET_MS} ms during the flood: ${ds.p99 < FLOOD_P99_TARGET_MS ? 'met' : 'MISSED'}`);
   // 429 and 503 are the server shedding load as designed; a solve answer of another status, a refusal
   // without Retry-After, or a failed dashboard read is an error.
@@ -478,15 +486,16 @@ async function main() {
   const started = new Date().toISOString();
   // One user alone first: the cost of a request without queueing, to read the loaded figures against.
   const ids = { studyId, planId: plan.id };
-  const alone = await readPhase(inst.appUrl, sessions, ids, { connections: 1, seconds: BASELINE_SECONDS, title: 'Baseline — one connection', target: false });
-  const reads = await readPhase(inst.appUrl, sessions, ids, { title: 'Phase 1 — reads at a working pace', rate: USER_RATE });
-  const capacity = await readPhase(inst.appUrl, sessions, ids, { seconds: CAPACITY_SECONDS, title: 'Phase 2 — capacity, no pause', target: false });
-  console.log(`capacity: ${capacity.throughput.toFixed(0)} requests/s with ${READ_CONNECTIONS} requests always in flight`);
-  const flood = await floodPhase(inst.appUrl, sessions, { polite: true, seconds: FLOOD_SECONDS, title: 'Phase 3 — solver flood' });
+  const none = { errors: 0, non2xx: 0 };
+  const alone = PHASES.has('1') ? await readPhase(inst.appUrl, sessions, ids, { connections: 1, seconds: BASELINE_SECONDS, title: 'Baseline — one connection', target: false }) : none;
+  const reads = PHASES.has('1') ? await readPhase(inst.appUrl, sessions, ids, { title: 'Phase 1 — reads at a working pace', rate: USER_RATE }) : none;
+  const capacity = PHASES.has('2') ? await readPhase(inst.appUrl, sessions, ids, { seconds: CAPACITY_SECONDS, title: 'Phase 2 — capacity, no pause', target: false }) : none;
+  if (PHASES.has('2')) console.log(`capacity: ${capacity.throughput.toFixed(0)} requests/s with ${READ_CONNECTIONS} requests always in flight`);
+  const flood = PHASES.has('3') ? await floodPhase(inst.appUrl, sessions, { polite: true, seconds: FLOOD_SECONDS, title: 'Phase 3 — solver flood' }) : none;
   // the queue drains before the next part, so it starts from the same state
-  await sleep(15_000);
-  const runaway = await floodPhase(inst.appUrl, sessions, { polite: false, seconds: RUNAWAY_SECONDS, title: 'Phase 3b — runaway clients' });
-  const js = firstLoadJs(inst);
+  if (PHASES.has('3') && PHASES.has('3b')) await sleep(15_000);
+  const runaway = PHASES.has('3b') ? await floodPhase(inst.appUrl, sessions, { polite: false, seconds: RUNAWAY_SECONDS, title: 'Phase 3b — runaway clients' }) : none;
+  if (PHASES.has('4')) firstLoadJs(inst);
 
   console.log('');
   console.log(`started ${started}; ${process.version}; load average at the end ${(await import('node:os')).loadavg().map((l) => l.toFixed(2)).join(' ')}`);
