@@ -1,13 +1,15 @@
 import fc from 'fast-check';
 import type { SessionUser } from '../../src/lib/auth/session-user';
 import { createCoil } from '../../src/lib/data/coils';
-import { planPredictionRun } from '../../src/lib/data/plan-predictions';
+import { planPredictionRun, setPlanSolverPool } from '../../src/lib/data/plan-predictions';
 import { listPlanPoints } from '../../src/lib/data/plan-points';
 import { createPlan, transitionPlan } from '../../src/lib/data/plans';
 import { acknowledgeCautions, createReading } from '../../src/lib/data/readings';
 import { createSetup } from '../../src/lib/data/setups';
 import { createStudy } from '../../src/lib/data/studies';
 import { BENCH_CAUTIONS_VERSION } from '../../src/lib/readings/bench-cautions';
+import { createSourceWorker } from '../../src/lib/solver-pool/source-worker';
+import { SolverPool } from '../../src/lib/solver-pool/solver-pool';
 import { coilCreateSchema } from '../../src/lib/validations/coil';
 import { planCreateSchema } from '../../src/lib/validations/plan';
 import { readingCreateSchema } from '../../src/lib/validations/reading';
@@ -189,4 +191,26 @@ export async function fuzzIdParams(c: JsonRouteCase, keys: string[], setActor: (
       expect(await databaseState()).toEqual(before);
     }),
   );
+}
+
+/** What a fuzz suite runs in: a solver pool of its own for plan predictions, the database as it was, and a study. */
+export interface FuzzWorld {
+  pool: SolverPool;
+  base: Baseline;
+  fx: FuzzStudy;
+}
+
+/** Starts the suite's pool (one worker, room to queue), notes the database's state and makes the study. */
+export async function openFuzzWorld(label: string): Promise<FuzzWorld> {
+  const pool = new SolverPool({ size: 1, queueLimit: 64, timeoutMs: 60_000, createWorker: () => createSourceWorker() });
+  setPlanSolverPool(pool);
+  const base = await baseline();
+  return { pool, base, fx: await createFuzzStudy(label) };
+}
+
+/** Removes what the suite wrote and stops its pool; parts never opened (a failed start) are skipped. */
+export async function closeFuzzWorld({ pool, base }: Partial<FuzzWorld>): Promise<void> {
+  if (base) await removeSince(base);
+  setPlanSolverPool(null);
+  await pool?.close();
 }

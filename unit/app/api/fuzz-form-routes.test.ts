@@ -18,9 +18,7 @@ import fc from 'fast-check';
 import type { SessionUser } from '@/lib/auth/session-user';
 import { actAs } from '../../support/acting-user';
 import { bucketObjects, testBucketClient } from '../../support/test-bucket';
-import { setPlanSolverPool } from '@/lib/data/plan-predictions';
-import { createSourceWorker } from '@/lib/solver-pool/source-worker';
-import { SolverPool } from '@/lib/solver-pool/solver-pool';
+import type { SolverPool } from '@/lib/solver-pool/solver-pool';
 import { MAX_ATTACHMENT_BYTES } from '@/lib/storage/content-type';
 import { setObjectStoreConfig } from '@/lib/storage/object-store';
 import { MAX_UPLOAD_BODY_BYTES } from '@/lib/storage/upload-form';
@@ -28,7 +26,7 @@ import * as attachmentsRoute from '@/app/api/studies/[studyId]/plans/[planId]/at
 import * as touchstoneRoute from '@/app/api/studies/[studyId]/plans/[planId]/readings/from-touchstone/route';
 import { db } from '../../support/database';
 import { databaseState, edgeNumbers, edgeStrings, expectWellFormed, FUZZ_RUNS, FUZZ_SEED, RAW_NUMBERS, readAnswer, TEXT_SAMPLES, type Answer } from '../../support/fuzz-json';
-import { baseline, callRoute, createFuzzStudy, removeSince, type Baseline, type FuzzStudy } from '../../support/fuzz-fixtures';
+import { callRoute, closeFuzzWorld, openFuzzWorld, type Baseline, type FuzzStudy } from '../../support/fuzz-fixtures';
 
 jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
 
@@ -250,19 +248,14 @@ describe(`form routes refuse hostile multipart bodies with 4xx and field paths (
   let fx: FuzzStudy;
 
   beforeAll(async () => {
-    pool = new SolverPool({ size: 1, queueLimit: 64, timeoutMs: 60_000, createWorker: () => createSourceWorker() });
-    setPlanSolverPool(pool);
-    base = await baseline();
-    fx = await createFuzzStudy('Fuzz forms');
+    ({ pool, base, fx } = await openFuzzWorld('Fuzz forms'));
   }, 120_000);
 
   afterAll(async () => {
     // The accepted uploads' objects go with their rows.
     const keys = fx ? (await bucketState(`studies/${fx.studyId}/`)).map((o) => o.split(' ')[0]) : [];
     for (const key of keys) await testBucketClient.send(new DeleteObjectCommand({ Bucket: process.env.S3_BUCKET!, Key: key }));
-    await removeSince(base);
-    setPlanSolverPool(null);
-    await pool.close();
+    await closeFuzzWorld({ pool, base, fx });
     setObjectStoreConfig(null);
     testBucketClient.destroy();
     await db.destroy();

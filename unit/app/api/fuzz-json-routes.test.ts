@@ -8,10 +8,8 @@
 import type { SessionUser } from '@/lib/auth/session-user';
 import { actAs } from '../../support/acting-user';
 import { createAccount } from '@/lib/data/accounts';
-import { setPlanSolverPool } from '@/lib/data/plan-predictions';
 import { DEFAULT_MAX_BODY_BYTES } from '@/lib/http/respond';
-import { createSourceWorker } from '@/lib/solver-pool/source-worker';
-import { SolverPool } from '@/lib/solver-pool/solver-pool';
+import type { SolverPool } from '@/lib/solver-pool/solver-pool';
 import { MAX_SOLVE_BODY_BYTES } from '@/lib/validations/solve';
 import * as accountRoute from '@/app/api/admin/accounts/[userId]/route';
 import * as accountsRoute from '@/app/api/admin/accounts/route';
@@ -27,7 +25,7 @@ import * as studiesRoute from '@/app/api/studies/route';
 import { db, SEEDED, sessionUserByEmail } from '../../support/database';
 import { awkwardTextBody, databaseState, FUZZ_SEED } from '../../support/fuzz-json';
 import {
-  baseline, callRoute, createFuzzStudy, FUZZ_CIRCUIT, FUZZ_HELIX, fuzzIdParams, fuzzJsonRoute, fuzzQueryRoute, removeSince, type Baseline, type FuzzStudy, type JsonRouteCase,
+  callRoute, FUZZ_CIRCUIT, FUZZ_HELIX, fuzzIdParams, fuzzJsonRoute, fuzzQueryRoute, closeFuzzWorld, openFuzzWorld, type Baseline, type FuzzStudy, type JsonRouteCase,
 } from '../../support/fuzz-fixtures';
 
 jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
@@ -51,19 +49,14 @@ describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
   let accountId: number;
 
   beforeAll(async () => {
-    pool = new SolverPool({ size: 1, queueLimit: 64, timeoutMs: 60_000, createWorker: () => createSourceWorker() });
-    setPlanSolverPool(pool);
+    ({ pool, base, fx } = await openFuzzWorld('Fuzz routes'));
     mockSolvePool = pool;
-    base = await baseline();
-    fx = await createFuzzStudy('Fuzz routes');
     admin = await sessionUserByEmail(SEEDED.admin);
     accountId = (await createAccount(admin, { email: 'fuzz.account@couplet.test', name: 'Fuzz Account', siteRole: 'member', password: 'fuzz password 1' })).id;
   }, 120_000);
 
   afterAll(async () => {
-    await removeSince(base);
-    setPlanSolverPool(null);
-    await pool.close();
+    await closeFuzzWorld({ pool, base, fx });
     await db.destroy();
   });
 

@@ -6,12 +6,10 @@
 import fc from 'fast-check';
 import type { SessionUser } from '@/lib/auth/session-user';
 import { actAs } from '../../support/acting-user';
-import { setPlanSolverPool } from '@/lib/data/plan-predictions';
 import { DEFAULT_MAX_BODY_BYTES } from '@/lib/http/respond';
 import { MEASUREMENT_METHODS, METHOD_SPECS } from '@/physics/measurement/methods';
 import { BENCH_CAUTIONS_VERSION } from '@/lib/readings/bench-cautions';
-import { createSourceWorker } from '@/lib/solver-pool/source-worker';
-import { SolverPool } from '@/lib/solver-pool/solver-pool';
+import type { SolverPool } from '@/lib/solver-pool/solver-pool';
 import { CSV_MAX_BYTES } from '@/lib/validations/reading-import';
 import * as planRoute from '@/app/api/studies/[studyId]/plans/[planId]/route';
 import * as cautionsRoute from '@/app/api/studies/[studyId]/plans/[planId]/cautions/route';
@@ -28,7 +26,7 @@ import * as transitionRoute from '@/app/api/studies/[studyId]/plans/[planId]/tra
 import * as plansRoute from '@/app/api/studies/[studyId]/plans/route';
 import { db } from '../../support/database';
 import { awkwardTextBody, FUZZ_SEED } from '../../support/fuzz-json';
-import { baseline, createFuzzStudy, fuzzIdParams, fuzzJsonRoute, fuzzQueryRoute, removeSince, type Baseline, type FuzzStudy, type JsonRouteCase } from '../../support/fuzz-fixtures';
+import { fuzzIdParams, fuzzJsonRoute, fuzzQueryRoute, closeFuzzWorld, openFuzzWorld, type Baseline, type FuzzStudy, type JsonRouteCase } from '../../support/fuzz-fixtures';
 
 jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
 
@@ -45,16 +43,11 @@ describe(`plan routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
   let fx: FuzzStudy;
 
   beforeAll(async () => {
-    pool = new SolverPool({ size: 1, queueLimit: 64, timeoutMs: 60_000, createWorker: () => createSourceWorker() });
-    setPlanSolverPool(pool);
-    base = await baseline();
-    fx = await createFuzzStudy('Fuzz plans');
+    ({ pool, base, fx } = await openFuzzWorld('Fuzz plans'));
   }, 120_000);
 
   afterAll(async () => {
-    await removeSince(base);
-    setPlanSolverPool(null);
-    await pool.close();
+    await closeFuzzWorld({ pool, base, fx });
     await db.destroy();
   });
 
