@@ -36,6 +36,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { createRequire } from 'node:module';
 import { fail, info, ok, reportError, setPrefix, step } from './lib/log.mjs';
 import { acquireLock, childEnv, getInstance, prepareDirs, readOrCreateSecret, recoverLeftovers, releaseLock, ROOT } from './lib/instance.mjs';
@@ -329,6 +330,9 @@ async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title 
     return usable ? Number(value) : 1;
   };
   const until = performance.now() + duration * 1000;
+  // The load generator's own event loop: a stall there would be counted as server latency.
+  const generatorDelay = monitorEventLoopDelay({ resolution: 10 });
+  generatorDelay.enable();
   const solvers = solverCookies.map((cookie) => (polite
     ? politeSolver(baseUrl, cookie, body, until, tallies.get(solveLabel), countRetryAfter)
     : runCannon({
@@ -343,6 +347,7 @@ async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title 
   const readers = readerCookies.map((cookie, i) =>
     runCannon({ url: baseUrl, requests: [dashboard], cookie, duration, tallies, rate: USER_RATE, delayMs: (1000 * i) / (readerCookies.length * USER_RATE) }));
   const [solveResults, readResults] = await Promise.all([Promise.all(solvers), Promise.all(readers)]);
+  generatorDelay.disable();
   const seconds = (performance.now() - started) / 1000;
   const s = tallies.get(solveLabel);
   const d = tallies.get(dashboard.label);
@@ -364,6 +369,7 @@ async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title 
   console.log(`dashboard during the flood: ${d.count} requests (${(d.count / seconds).toFixed(1)}/s), p50 ${fmt(ds.p50)} ms, p90 ${fmt(ds.p90)} ms, p99 ${fmt(ds.p99)} ms, non-2xx ${d.non2xx}, errors ${sumErrors(readResults)}`);
   // when the slowest reads started, from the flood's start: a burst shows as a cluster of times
   const slowest = d.latencies.map((ms, i) => [ms, (d.started[i] - started) / 1000]).sort((a, b) => b[0] - a[0]).slice(0, Math.max(1, Math.ceil(d.count / 100)));
+  console.log(`the load generator's event loop meanwhile: delay p99 ${fmt(generatorDelay.percentile(99) / 1e6)} ms, max ${fmt(generatorDelay.max / 1e6)} ms`);
   console.log(`slowest 1 % of those reads (ms @ s after the flood began): ${slowest.map(([ms, at]) => `${fmt(ms)} @ ${at.toFixed(1)}`).join(', ')}`);
   if (polite) console.log(`target dashboard p99 < ${FLOOD_P99_TARGET_MS} ms during the flood: ${ds.p99 < FLOOD_P99_TARGET_MS ? 'met' : 'MISSED'}`);
   // 429 and 503 are the server shedding load as designed; a solve answer of another status, a refusal
@@ -482,6 +488,12 @@ async function main() {
     if (r.status !== 200) throw new Error(`warm-up GET ${p} answered ${r.status}`);
     await r.arrayBuffer();
   }
+  // …and one light solve, which loads the solve route and starts the solver's thread: a server that has
+  // been up a while has done both, and the flood below measures that state, not a fresh start.
+  const light = { ...HEAVY_SOLVE, transmitter: { kind: 'loop', radius: 0.05, wireDiameter: 0.001 }, receiver: { kind: 'loop', radius: 0.05, wireDiameter: 0.001 }, tolerance: 1e-6 };
+  const warmSolve = await fetch(`${inst.appUrl}/api/solve`, { method: 'POST', headers: { cookie: sessions[0], 'content-type': 'application/json' }, body: JSON.stringify(light) });
+  if (warmSolve.status !== 200) throw new Error(`warm-up POST /api/solve answered ${warmSolve.status}: ${(await warmSolve.text()).slice(0, 200)}`);
+  await warmSolve.arrayBuffer();
 
   const started = new Date().toISOString();
   // One user alone first: the cost of a request without queueing, to read the loaded figures against.
