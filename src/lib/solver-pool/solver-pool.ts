@@ -43,8 +43,6 @@ interface Job {
   reject: (error: Error) => void;
   /** Detaches the abort listener once the job has left the queue. */
   detach: () => void;
-  /** Answered or failed: later answers (after a timeout, say) change no count. */
-  settled: boolean;
 }
 
 interface Slot {
@@ -73,16 +71,8 @@ function outcomeError(error: Extract<SolveJobOutcome, { ok: false }>['error']): 
   return new SolverFailedError(error.message);
 }
 
-/** Jobs without an owner are counted together under "", which no real owner name is; they have no limit. */
+/** Jobs without an owner take turns together under "", which no real owner name is; they have no limit. */
 const ownerKey = (owner: string | undefined) => owner ?? '';
-
-/** Lowers a count, removing the key at zero; returns the new count. */
-function decrement(counts: Map<string, number>, key: string): number {
-  const n = (counts.get(key) ?? 0) - 1;
-  if (n > 0) counts.set(key, n);
-  else counts.delete(key);
-  return Math.max(0, n);
-}
 
 /**
  * What a queued job rejects with when its request was abandoned. The client is gone, so nobody reads
@@ -98,10 +88,6 @@ export class SolverPool {
   private nextId = 1;
   private closed = false;
   private averageRunMs = 0;
-  /** Running and waiting jobs per owner (jobs without owner under ""). */
-  private readonly ownerJobs = new Map<string, number>();
-  /** Running jobs per owner, for choosing whose waiting job goes next (jobs without owner under ""). */
-  private readonly ownerRunning = new Map<string, number>();
   /** When each owner with jobs last had one dispatched (a dispatch count), for taking turns. */
   private readonly lastServed = new Map<string, number>();
   private dispatches = 0;
@@ -125,13 +111,10 @@ export class SolverPool {
         resolve: (result) => this.settle(entry, () => resolve(result)),
         reject: (error) => this.settle(entry, () => reject(error)),
         detach: () => {},
-        settled: false,
       };
       const slot = this.freeSlot();
       if (slot) this.dispatch(slot, entry);
       else this.enqueue(entry, signal);
-      const key = ownerKey(owner);
-      this.ownerJobs.set(key, (this.ownerJobs.get(key) ?? 0) + 1);
     });
   }
 
@@ -143,7 +126,7 @@ export class SolverPool {
   refusal(owner?: string): Error | null {
     if (this.closed) return new SolverClosedError();
     const limit = this.options.perOwnerLimit;
-    if (owner !== undefined && limit !== undefined && (this.ownerJobs.get(ownerKey(owner)) ?? 0) >= limit) {
+    if (owner !== undefined && limit !== undefined && this.jobsOf(owner) >= limit) {
       return new SolverQuotaError(this.retryAfterSeconds(), limit);
     }
     const idle = [...this.slots].some((s) => !s.current) || this.slots.size < this.options.size;
@@ -182,15 +165,28 @@ export class SolverPool {
     entry.detach = () => signal.removeEventListener('abort', onAbort);
   }
 
-  /** Bookkeeping once a job has an answer or an error, then the caller's callback. */
+  /**
+   * Once a job has an answer or an error (it has left its worker or the queue by then): an owner with
+   * nothing left is forgotten, so lastServed holds only owners with jobs; then the caller's callback.
+   */
   private settle(entry: Job, then: () => void): void {
-    if (entry.settled) return;
-    entry.settled = true;
     entry.detach();
-    const key = ownerKey(entry.owner);
-    // an owner with nothing left is forgotten, so the maps hold only owners with jobs
-    if (decrement(this.ownerJobs, key) === 0) this.lastServed.delete(key);
+    if (this.jobsOf(entry.owner) === 0) this.lastServed.delete(ownerKey(entry.owner));
     then();
+  }
+
+  /** Jobs of `owner` on a worker now. */
+  private runningOf(owner: string | undefined): number {
+    let n = 0;
+    for (const s of this.slots) if (s.current && ownerKey(s.current.owner) === ownerKey(owner)) n++;
+    return n;
+  }
+
+  /** Jobs of `owner` running or waiting. */
+  private jobsOf(owner: string | undefined): number {
+    let n = this.runningOf(owner);
+    for (const entry of this.queue) if (ownerKey(entry.owner) === ownerKey(owner)) n++;
+    return n;
   }
 
   /**
@@ -198,16 +194,18 @@ export class SolverPool {
    * ago (or never), so owners take turns; among one owner's jobs, the oldest.
    */
   private takeNext(): Job {
+    const running = new Map<string, number>();
+    for (const s of this.slots) if (s.current) running.set(ownerKey(s.current.owner), (running.get(ownerKey(s.current.owner)) ?? 0) + 1);
     let best = 0;
     let bestRunning = Infinity;
     let bestServed = Infinity;
     for (let i = 0; i < this.queue.length; i++) {
       const key = ownerKey(this.queue[i].owner);
-      const running = this.ownerRunning.get(key) ?? 0;
+      const ownerRunning = running.get(key) ?? 0;
       const served = this.lastServed.get(key) ?? -1;
-      if (running < bestRunning || (running === bestRunning && served < bestServed)) {
+      if (ownerRunning < bestRunning || (ownerRunning === bestRunning && served < bestServed)) {
         best = i;
-        bestRunning = running;
+        bestRunning = ownerRunning;
         bestServed = served;
       }
     }
@@ -253,9 +251,7 @@ export class SolverPool {
 
   private dispatch(slot: Slot, entry: Job): void {
     slot.current = entry;
-    const key = ownerKey(entry.owner);
-    this.ownerRunning.set(key, (this.ownerRunning.get(key) ?? 0) + 1);
-    this.lastServed.set(key, this.dispatches++);
+    this.lastServed.set(ownerKey(entry.owner), this.dispatches++);
     slot.worker.ref(); // a running job keeps the process alive until it answers
     // a starting worker receives the job once it listens; its clock starts with the ready message
     this.startClock(slot, this.options.timeoutMs + (slot.ready ? 0 : START_UP_ALLOWANCE_MS));
@@ -283,7 +279,6 @@ export class SolverPool {
   }
 
   private release(slot: Slot): void {
-    if (slot.current) decrement(this.ownerRunning, ownerKey(slot.current.owner));
     if (slot.timer) clearTimeout(slot.timer);
     slot.timer = null;
     slot.current = null;
