@@ -15,7 +15,6 @@
  */
 import { DeleteObjectCommand } from '@aws-sdk/client-s3';
 import fc from 'fast-check';
-import type { SessionUser } from '@/lib/auth/session-user';
 import { actAs } from '../../support/acting-user';
 import { bucketObjects, testBucketClient } from '../../support/test-bucket';
 import type { SolverPool } from '@/lib/solver-pool/solver-pool';
@@ -134,10 +133,6 @@ function expectNoInternals(answer: Answer, shown: string): void {
 async function bucketState(prefix?: string): Promise<string[]> {
   return [...(await bucketObjects(prefix))].map(([key, sizeAndTag]) => `${key} ${sizeAndTag}`).sort();
 }
-
-const setActor = (user: SessionUser) => {
-  actAs(user);
-};
 
 // ---------------------------------------------------------------------------------------------
 // values
@@ -274,7 +269,7 @@ describe(`form routes refuse hostile multipart bodies with 4xx and field paths (
    * accepted upload added exactly its own object. Returns the answer for further checks.
    */
   async function upload(parts: Part[], w: Wire, planId = fx.benchPlanId): Promise<Answer> {
-    setActor(fx.researcher);
+    actAs(fx.researcher);
     const body = await encode(parts, w);
     const shown = `${JSON.stringify(w)} ${body.contentType} ${JSON.stringify(body.bytes.subarray(0, 600).toString('latin1'))} (${body.bytes.length} bytes)`;
     const [before, objectsBefore] = await Promise.all([databaseState(), bucketState()]);
@@ -402,7 +397,7 @@ describe(`form routes refuse hostile multipart bodies with 4xx and field paths (
   }, 60_000);
 
   test('a body past the upload limit is a 413 at file: declared in Content-Length, or only as it streams', async () => {
-    setActor(fx.researcher);
+    actAs(fx.researcher);
     const [before, objectsBefore] = await Promise.all([databaseState(), bucketState()]);
     const chunk = new Uint8Array(MB).fill(0x61);
     for (const declare of [true, false]) {
@@ -456,7 +451,7 @@ describe(`form routes refuse hostile multipart bodies with 4xx and field paths (
           const stored = await upload(withParts(validParts(), [['file', { value: Buffer.from(text), fileName: name }]]), { encoding: 'native', contentType: null, damage: null });
           if (stored.status !== 201) return;
           const attachmentId = (stored.body.attachment as { id: number }).id;
-          setActor(fx.researcher);
+          actAs(fx.researcher);
           const before = await databaseState();
           const body = JSON.stringify({ pointId: fx.pointIds[pointIndex], attachmentId, frequency, ...circumstances });
           const answer = await callRoute(touchstoneRoute.POST, { method: 'POST', url: `/api/studies/${fx.studyId}/plans/${fx.benchPlanId}/readings/from-touchstone`, params: params(), body });

@@ -37,10 +37,6 @@ jest.mock('@/lib/solver-pool/server-pool', () => ({
   solveOnServer: (job: unknown) => mockSolvePool!.solve(job as never),
 }));
 
-const setActor = (user: SessionUser) => {
-  actAs(user);
-};
-
 describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=${FUZZ_SEED})`, () => {
   let pool: SolverPool;
   let base: Baseline;
@@ -103,13 +99,13 @@ describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
 
   test.each(NAMES)('%s', async (name) => {
     const c = cases().find((x) => x.name === name)!;
-    const { statuses } = await fuzzJsonRoute(c, base, setActor);
+    const { statuses } = await fuzzJsonRoute(c, base, actAs);
     if (process.env.FUZZ_VERBOSE) console.log(name, statuses);
   });
 
   test.each(NAMES)('%s with awkward text in one field', async (name) => {
     const c = cases().find((x) => x.name === name)!;
-    const { statuses } = await fuzzJsonRoute(c, base, setActor, awkwardTextBody(c.valid));
+    const { statuses } = await fuzzJsonRoute(c, base, actAs, awkwardTextBody(c.valid));
     if (process.env.FUZZ_VERBOSE) console.log(name, 'text', statuses);
   });
 
@@ -119,7 +115,7 @@ describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
     ['PATCH /api/studies/{studyId}/members/{userId}', ['studyId', 'userId']],
     ['PATCH /api/admin/accounts/{userId}', ['userId']],
   ])('%s with hostile path ids', async (name, keys) => {
-    await fuzzIdParams(cases().find((x) => x.name === name)!, keys, setActor);
+    await fuzzIdParams(cases().find((x) => x.name === name)!, keys, actAs);
   });
 
   // JSON may write half a surrogate pair ("\ud800"); MariaDB's JSON columns (the audit trail) cannot hold it, so the body is refused at the field.
@@ -130,7 +126,7 @@ describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
     ['PATCH /api/studies/{studyId}/setups/{setupId}', ['name']],
   ] as [string, ...string[][]][])('%s refuses a lone surrogate with 422 at its field and writes nothing', async (name, ...paths) => {
     const c = cases().find((x) => x.name === name)!;
-    setActor(c.actor);
+    actAs(c.actor);
     for (const [field] of paths) {
       const before = await databaseState();
       const body = JSON.stringify({ ...c.valid, [field]: 'x\ud800y' });
@@ -143,7 +139,7 @@ describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
 
   test('a lone surrogate in a key or deep in a list is named by its path', async () => {
     const c = cases().find((x) => x.name === 'POST /api/solve')!;
-    setActor(c.actor);
+    actAs(c.actor);
     const answer = await callRoute(c.handler, { method: 'POST', url: c.url, params: {}, body: '{"fieldPoints":[[0,"\\udc00",0]],"\\ud83d":1}' });
     expect(answer.status).toBe(422);
     expect((answer.body.issues as { path: string }[]).map((i) => i.path).sort()).toEqual(['fieldPoints.0.1', '\ud83d']);
@@ -151,7 +147,7 @@ describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
 
   test('JSON nested 100,000 deep is a 422, not a stack overflow', async () => {
     const c = cases().find((x) => x.name === 'POST /api/studies')!;
-    setActor(c.actor);
+    actAs(c.actor);
     for (const body of [`${'['.repeat(100_000)}${']'.repeat(100_000)}`, `{"name":${'['.repeat(100_000)}"\\ud800"${']'.repeat(100_000)}}`, `${'{"a":'.repeat(40_000)}1${'}'.repeat(40_000)}`]) {
       const answer = await callRoute(c.handler, { method: 'POST', url: c.url, params: {}, body });
       expect(answer.status).toBe(422);
@@ -163,6 +159,6 @@ describe(`JSON routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
     await fuzzQueryRoute({
       name: 'history', handler: historyRoute.GET, url: `/api/studies/${fx.studyId}/history`, params: { studyId: String(fx.studyId) }, actor: fx.researcher,
       keys: ['before', 'limit', 'planId', 'actorId', 'category'],
-    }, setActor);
+    }, actAs);
   });
 });

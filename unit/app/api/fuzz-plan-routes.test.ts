@@ -4,7 +4,6 @@
  * and a refused write leaves every table unchanged. Replay a failure with FUZZ_SEED and FUZZ_RUNS.
  */
 import fc from 'fast-check';
-import type { SessionUser } from '@/lib/auth/session-user';
 import { actAs } from '../../support/acting-user';
 import { DEFAULT_MAX_BODY_BYTES } from '@/lib/http/respond';
 import { MEASUREMENT_METHODS, METHOD_SPECS } from '@/physics/measurement/methods';
@@ -29,10 +28,6 @@ import { awkwardTextBody, FUZZ_SEED } from '../../support/fuzz-json';
 import { fuzzIdParams, fuzzJsonRoute, fuzzQueryRoute, closeFuzzWorld, openFuzzWorld, type Baseline, type FuzzStudy, type JsonRouteCase } from '../../support/fuzz-fixtures';
 
 jest.mock('@/lib/auth/session', () => jest.requireActual('../../support/acting-user').sessionStandIn);
-
-const setActor = (user: SessionUser) => {
-  actAs(user);
-};
 
 /** The import reads the file's text inside JSON: room for the file, its escaping and the mapping. */
 const IMPORT_MAX_BODY_BYTES = CSV_MAX_BYTES + 1024 * 1024;
@@ -101,13 +96,13 @@ describe(`plan routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
 
   test.each(NAMES)('%s', async (name) => {
     const c = cases().find((x) => x.name === name)!;
-    const { statuses } = await fuzzJsonRoute(c, base, setActor);
+    const { statuses } = await fuzzJsonRoute(c, base, actAs);
     if (process.env.FUZZ_VERBOSE) console.log(name, statuses);
   });
 
   test.each(NAMES)('%s with awkward text in one field', async (name) => {
     const c = cases().find((x) => x.name === name)!;
-    const { statuses } = await fuzzJsonRoute(c, base, setActor, awkwardTextBody(c.valid));
+    const { statuses } = await fuzzJsonRoute(c, base, actAs, awkwardTextBody(c.valid));
     if (process.env.FUZZ_VERBOSE) console.log(name, 'text', statuses);
   });
 
@@ -125,7 +120,7 @@ describe(`plan routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
       fc.constantFrom('\n', '\r\n', '\r'),
       fc.boolean(),
     ).map(([header, rows, eol, commit]) => JSON.stringify({ ...c.valid, csv: [header, ...rows].join(eol), commit }));
-    await fuzzJsonRoute(c, base, setActor, csv);
+    await fuzzJsonRoute(c, base, actAs, csv);
   });
 
   test('POST readings/import derives every method from in-range, edge and extreme numbers without a 5xx', async () => {
@@ -142,7 +137,7 @@ describe(`plan routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
     const bodies = fc.tuple(fc.array(row, { minLength: 1, maxLength: 6 }), fc.boolean()).map(([rows, commit]) =>
       JSON.stringify({ ...c.valid, mapping, commit: commit && rows.length === 1, csv: [['seq', 'repeat', 'method', ...keys].join(','), ...rows].join('\n') }),
     );
-    const { statuses } = await fuzzJsonRoute(c, base, setActor, bodies);
+    const { statuses } = await fuzzJsonRoute(c, base, actAs, bodies);
     if (process.env.FUZZ_VERBOSE) console.log('import derivations', statuses);
   });
 
@@ -151,13 +146,13 @@ describe(`plan routes refuse hostile bodies with 4xx and field paths (FUZZ_SEED=
     ['POST corrections', ['studyId', 'planId', 'readingId']],
     ['POST review/marks', ['planId']],
   ])('%s with hostile path ids', async (name, keys) => {
-    await fuzzIdParams(cases().find((x) => x.name === name)!, keys, setActor);
+    await fuzzIdParams(cases().find((x) => x.name === name)!, keys, actAs);
   });
 
   test('GET review reads any query string without a 5xx', async () => {
     await fuzzQueryRoute({
       name: 'review', handler: reviewRoute.GET, url: `/api/studies/${fx.studyId}/plans/${fx.benchPlanId}/review`,
       params: { studyId: String(fx.studyId), planId: String(fx.benchPlanId) }, actor: fx.researcher, keys: ['quantity'],
-    }, setActor);
+    }, actAs);
   });
 });
