@@ -17,19 +17,7 @@ jest.mock('next/navigation', () => ({
 }));
 jest.mock('@/lib/auth/session', () => ({ requireUser: jest.fn(), getSessionUser: jest.fn() }));
 // the tests read the tokens as they are made, instead of from the e-mails that carry them
-jest.mock('@/lib/invitations/token', () => {
-  const actual = jest.requireActual('@/lib/invitations/token');
-  const issued: string[] = [];
-  return {
-    ...actual,
-    issuedForTest: issued,
-    generateInvitationToken: () => {
-      const token = actual.generateInvitationToken();
-      issued.push(token);
-      return token;
-    },
-  };
-});
+jest.mock('@/lib/invitations/token', () => jest.requireActual('../support/recorded-invitation-tokens').recordingTokenModule());
 
 import fc from 'fast-check';
 import { acceptWithNewAccount, joinAsSignedInUser, type JoinState, type NewAccountState } from '@/app/invite/[token]/actions';

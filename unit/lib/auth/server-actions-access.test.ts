@@ -13,19 +13,7 @@ jest.mock('next/navigation', () => ({
 }));
 jest.mock('../../../src/lib/auth/session', () => ({ requireUser: jest.fn() }));
 // the tests read the tokens as they are made, instead of from the e-mails that carry them
-jest.mock('../../../src/lib/invitations/token', () => {
-  const actual = jest.requireActual('../../../src/lib/invitations/token');
-  const issued: string[] = [];
-  return {
-    ...actual,
-    issuedForTest: issued,
-    generateInvitationToken: () => {
-      const token = actual.generateInvitationToken();
-      issued.push(token);
-      return token;
-    },
-  };
-});
+jest.mock('../../../src/lib/invitations/token', () => jest.requireActual('../../support/recorded-invitation-tokens').recordingTokenModule());
 jest.mock('../../../src/lib/data/invitations', () => {
   const actual = jest.requireActual('../../../src/lib/data/invitations');
   return {
