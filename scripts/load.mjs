@@ -190,7 +190,7 @@ async function signIn(baseUrl, email) {
  * distinct signed-in user (autocannon's per-request context is reset on each pass of the request list,
  * so it cannot pin a user to a connection). Latencies are recorded per request label.
  */
-async function runCannon({ url, requests, cookie, duration, tallies, timeout = 10, onStatus, rate = 0, delayMs = 0 }) {
+async function runCannon({ url, requests, cookie, duration, tallies, timeout = 10, rate = 0, delayMs = 0 }) {
   if (delayMs > 0) await new Promise((resolve) => setTimeout(resolve, delayMs));
   return new Promise((resolve, reject) => {
     let removeCleanup = () => {};
@@ -214,7 +214,6 @@ async function runCannon({ url, requests, cookie, duration, tallies, timeout = 1
     instance.on('response', (client, status, _bytes, ms) => {
       const label = client.requestIterator.currentRequest.label;
       tallies.get(label).add(status, ms);
-      onStatus?.(label, status);
     });
     removeCleanup = onCleanup('autocannon', () => instance.stop());
   });
@@ -376,7 +375,7 @@ async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title 
   // without Retry-After, or a failed dashboard read is an error.
   const otherCount = [...s.statuses].filter(([st]) => ![200, 429, 503].includes(st)).reduce((n, [, c]) => n + c, 0);
   const errors = sumErrors(solveResults) + sumErrors(readResults) + d.non2xx + otherCount + noRetry[503] + noRetry[429];
-  return { errors, solve: s, retry, dashboard: ds };
+  return { errors };
 }
 
 // ---------------------------------------------------------------------------------------------
