@@ -29,11 +29,13 @@
  * is printed as MISSED; the exit code is 1 only when requests failed (socket errors, timeouts, or
  * non-2xx answers where none is expected).
  *
- * Before part 1, one connection alone for 10 s gives the cost of a request without queueing.
+ * First, 10 s of unreported reads and light solves warm the app up (see warmUp); then, before part 1,
+ * one connection alone for 10 s gives the cost of a request without queueing.
  *
- * Usage: node scripts/load.mjs [--seconds N] [--capacity-seconds N] [--flood-seconds N] [--runaway-seconds N] [--baseline-seconds N] [--phases 1,2,3,3b,4]
+ * Usage: node scripts/load.mjs [--seconds N] [--capacity-seconds N] [--flood-seconds N] [--runaway-seconds N] [--baseline-seconds N] [--warm-up-seconds N] [--phases 1,2,3,3b,4]
  */
 import fs from 'node:fs';
+import http from 'node:http';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
@@ -59,6 +61,7 @@ const CAPACITY_SECONDS = arg('--capacity-seconds', 20);
 const FLOOD_SECONDS = arg('--flood-seconds', 30);
 const RUNAWAY_SECONDS = arg('--runaway-seconds', 15);
 const BASELINE_SECONDS = arg('--baseline-seconds', 10);
+const WARM_UP_SECONDS = arg('--warm-up-seconds', 10);
 /** Which parts to run (--phases 1,2,3,3b,4); all by default. */
 const PHASES = new Set((process.argv.includes('--phases') ? process.argv[process.argv.indexOf('--phases') + 1] : '1,2,3,3b,4').split(','));
 const USERS = 50;
@@ -221,20 +224,22 @@ async function runCannon({ url, requests, cookie, duration, tallies, timeout = 1
 
 const sumErrors = (results) => results.reduce((n, r) => n + r.errors + r.timeouts, 0);
 
+/** The reads of parts 1 and 2: the dashboard and the APIs a study's pages load. */
+const readEndpoints = ({ studyId, planId }) => [
+  { label: 'GET /dashboard', method: 'GET', path: '/dashboard' },
+  { label: 'GET /api/studies', method: 'GET', path: '/api/studies' },
+  { label: 'GET /api/studies/{id}/plans', method: 'GET', path: `/api/studies/${studyId}/plans` },
+  { label: 'GET …/plans/{planId}', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}` },
+  { label: 'GET …/plans/{planId}/readings', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}/readings` },
+  { label: 'GET …/plans/{planId}/review', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}/review?quantity=coupling` },
+];
+
 /**
  * `connections` users reading; with `rate`, each asks `rate` times a second (their seconds staggered
  * evenly), without it each asks again as soon as answered.
  */
 async function readPhase(baseUrl, sessions, ids, { connections = READ_CONNECTIONS, seconds: duration = READ_SECONDS, title, target = true, rate = 0 }) {
-  const { studyId, planId } = ids;
-  const endpoints = [
-    { label: 'GET /dashboard', method: 'GET', path: '/dashboard' },
-    { label: 'GET /api/studies', method: 'GET', path: '/api/studies' },
-    { label: 'GET /api/studies/{id}/plans', method: 'GET', path: `/api/studies/${studyId}/plans` },
-    { label: 'GET …/plans/{planId}', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}` },
-    { label: 'GET …/plans/{planId}/readings', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}/readings` },
-    { label: 'GET …/plans/{planId}/review', method: 'GET', path: `/api/studies/${studyId}/plans/${planId}/review?quantity=coupling` },
-  ];
+  const endpoints = readEndpoints(ids);
   const tallies = new Map(endpoints.map((e) => [e.label, new Tally()]));
   const pace = rate > 0 ? `${rate} request(s)/s each` : 'no pause between requests';
   step(`${title.toLowerCase()}: ${connections} user(s), one connection each, ${pace}, ${duration} s over ${endpoints.length} reads…`);
@@ -269,32 +274,56 @@ async function readPhase(baseUrl, sessions, ids, { connections = READ_CONNECTION
 const sleep = (ms) => new Promise((resolve) => setTimeout(resolve, ms));
 
 /**
+ * One POST of `body` to /api/solve over `agent`, with node:http: a plain client costs the shared CPU
+ * far less than fetch() (undici with web streams), whose cost on this machine slowed the app it was
+ * measuring. Resolves with the status and the Retry-After header.
+ */
+function postSolve(baseUrl, agent, cookie, body) {
+  const url = new URL('/api/solve', baseUrl);
+  return new Promise((resolve, reject) => {
+    const request = http.request(url, {
+      method: 'POST',
+      agent,
+      timeout: 60_000,
+      headers: { cookie, 'content-type': 'application/json', 'content-length': Buffer.byteLength(body) },
+    }, (response) => {
+      response.resume();
+      response.on('end', () => resolve({ status: response.statusCode, retryAfter: response.headers['retry-after'] }));
+      response.on('error', reject);
+    });
+    request.on('timeout', () => request.destroy(new Error('timed out')));
+    request.on('error', reject);
+    request.end(body);
+  });
+}
+
+/**
  * One connection posting heavy solves back to back until `until`, the way an HTTP client that honours
  * Retry-After does (RFC 9110, section 10.2.3): after a 429 or 503 it waits the seconds the server named.
+ * The connection is kept alive between solves and opened afresh after a wait, as the server closes
+ * connections idle for 5 s (Node's keepAliveTimeout) and a POST is not retried on a closed one.
  */
 async function politeSolver(baseUrl, cookie, body, until, tally, onRefusal) {
   let errors = 0;
+  let agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
   while (performance.now() < until) {
     const started = performance.now();
-    let response;
+    let answer;
     try {
-      response = await fetch(`${baseUrl}/api/solve`, {
-        method: 'POST',
-        headers: { cookie, 'content-type': 'application/json' },
-        body,
-        signal: AbortSignal.timeout(60_000),
-      });
-      await response.arrayBuffer();
+      answer = await postSolve(baseUrl, agent, cookie, body);
     } catch {
       errors++;
       continue;
     }
-    tally.add(response.status, performance.now() - started);
-    if (response.status === 429 || response.status === 503) {
-      const seconds = onRefusal(response.status, response.headers.get('retry-after') ?? undefined);
+    tally.add(answer.status, performance.now() - started);
+    if (answer.status === 429 || answer.status === 503) {
+      const seconds = onRefusal(answer.status, answer.retryAfter);
       await sleep(Math.min(seconds * 1000, Math.max(0, until - performance.now())));
+      agent.destroy();
+      agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
     }
   }
+  agent.destroy();
   return { errors, timeouts: 0 };
 }
 
@@ -438,6 +467,45 @@ function firstLoadJs(inst) {
 }
 
 // ---------------------------------------------------------------------------------------------
+// warm-up
+
+/** The light solve of the warm-up: two single loops, answered in milliseconds. */
+const LIGHT_SOLVE = {
+  ...HEAVY_SOLVE,
+  transmitter: { kind: 'loop', radius: 0.05, wireDiameter: 0.001 },
+  receiver: { kind: 'loop', radius: 0.05, wireDiameter: 0.001 },
+  tolerance: 1e-6,
+};
+
+/**
+ * Brings the app to the state of a server that has been in use a while, which is what the parts
+ * measure: V8 compiles a path for speed only after running it many times, and the database pool
+ * grows to its working size. A fresh server's first second of heavy traffic is several times slower
+ * than the next (25 first dashboards and a first flood together stalled it for about a second).
+ * For WARM_UP_SECONDS, 25 users read every endpoint of part 1 without pause while two more users
+ * post light solves on 8 connections each: the same intake as a heavy solve (session, share, body,
+ * validation), answered or refused for the share. Nothing of it is reported; a failure stops the run.
+ */
+async function warmUp(baseUrl, sessions, ids) {
+  step(`warming up for ${WARM_UP_SECONDS} s: 25 users reading, 16 connections posting light solves…`);
+  const endpoints = readEndpoints(ids);
+  const solveLabel = 'POST /api/solve';
+  const tallies = new Map([...endpoints.map((e) => [e.label, new Tally()]), [solveLabel, new Tally()]]);
+  const solve = { label: solveLabel, method: 'POST', path: '/api/solve', headers: { 'content-type': 'application/json' }, body: JSON.stringify(LIGHT_SOLVE) };
+  const readers = sessions.slice(0, 25).map((cookie, i) => {
+    const k = i % endpoints.length;
+    return runCannon({ url: baseUrl, requests: [...endpoints.slice(k), ...endpoints.slice(0, k)], cookie, duration: WARM_UP_SECONDS, tallies });
+  });
+  const solvers = sessions.slice(25, 27).flatMap((cookie) => Array.from({ length: 8 }, () => runCannon({ url: baseUrl, requests: [solve], cookie, duration: WARM_UP_SECONDS, tallies })));
+  const results = await Promise.all([...readers, ...solvers]);
+  const unexpected = [...tallies].flatMap(([label, t]) => [...t.statuses].filter(([status]) => status !== 200 && !(label === solveLabel && status === 429)).map(([status, n]) => `${label} ${status} ×${n}`));
+  if (sumErrors(results) || unexpected.length) throw new Error(`the warm-up failed: ${sumErrors(results)} socket errors or timeouts; ${unexpected.join(', ') || 'no unexpected statuses'}`);
+  // the light solves still queued finish in milliseconds; the parts start with an idle solver
+  await sleep(1000);
+  ok(`warm: ${[...tallies.values()].reduce((n, t) => n + t.count, 0)} requests answered`);
+}
+
+// ---------------------------------------------------------------------------------------------
 
 async function main() {
   const inst = getInstance('load');
@@ -481,22 +549,11 @@ async function main() {
   const sessions = [];
   for (const u of users) sessions.push(await signIn(inst.appUrl, u.email));
   ok(`${sessions.length} sessions`);
-  // Warm up: the first request of each route compiles nothing in production, but fills caches and pools.
-  for (const p of ['/dashboard', '/api/studies', `/api/studies/${studyId}/plans/${plan.id}/review?quantity=coupling`]) {
-    const r = await fetch(`${inst.appUrl}${p}`, { headers: { cookie: sessions[0] }, redirect: 'manual' });
-    if (r.status !== 200) throw new Error(`warm-up GET ${p} answered ${r.status}`);
-    await r.arrayBuffer();
-  }
-  // …and one light solve, which loads the solve route and starts the solver's thread: a server that has
-  // been up a while has done both, and the flood below measures that state, not a fresh start.
-  const light = { ...HEAVY_SOLVE, transmitter: { kind: 'loop', radius: 0.05, wireDiameter: 0.001 }, receiver: { kind: 'loop', radius: 0.05, wireDiameter: 0.001 }, tolerance: 1e-6 };
-  const warmSolve = await fetch(`${inst.appUrl}/api/solve`, { method: 'POST', headers: { cookie: sessions[0], 'content-type': 'application/json' }, body: JSON.stringify(light) });
-  if (warmSolve.status !== 200) throw new Error(`warm-up POST /api/solve answered ${warmSolve.status}: ${(await warmSolve.text()).slice(0, 200)}`);
-  await warmSolve.arrayBuffer();
+  const ids = { studyId, planId: plan.id };
+  await warmUp(inst.appUrl, sessions, ids);
 
   const started = new Date().toISOString();
   // One user alone first: the cost of a request without queueing, to read the loaded figures against.
-  const ids = { studyId, planId: plan.id };
   const none = { errors: 0, non2xx: 0 };
   const alone = PHASES.has('1') ? await readPhase(inst.appUrl, sessions, ids, { connections: 1, seconds: BASELINE_SECONDS, title: 'Baseline — one connection', target: false }) : none;
   const reads = PHASES.has('1') ? await readPhase(inst.appUrl, sessions, ids, { title: 'Phase 1 — reads at a working pace', rate: USER_RATE }) : none;
