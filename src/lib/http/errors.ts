@@ -29,6 +29,12 @@ export const conflict = (message: string, issues: FieldIssue[] = []) => new Http
 export const unprocessable = (message: string, issues: FieldIssue[] = []) => new HttpError(422, message, issues);
 export const tooManyRequests = (message: string) => new HttpError(429, message);
 
+/**
+ * What work given up because its request was abandoned rejects with. The client is gone, so nobody
+ * reads it; an HttpError keeps it out of the server log's unexpected failures.
+ */
+export const abandoned = (message: string) => new HttpError(503, message);
+
 /** What a person is told while MariaDB cannot be reached; like the file store's, it says to retry. */
 export const DATABASE_UNREACHABLE_MESSAGE = 'The database is not reachable; try again shortly.';
 

@@ -85,7 +85,11 @@ function loneSurrogatePaths(body: unknown, limit = 20): string[] {
  * become 422 with field paths, and a body over `maxBytes` is refused with 413 before it is parsed.
  */
 export async function parseJsonBody<T>(request: Request, schema: ZodType<T>, maxBytes = DEFAULT_MAX_BODY_BYTES): Promise<T> {
-  const text = await readBodyText(request, maxBytes);
+  return parseJsonText(await readBodyText(request, maxBytes), schema);
+}
+
+/** Validates a JSON body already read (see parseJsonBody), with the same 422s. */
+export function parseJsonText<T>(text: string, schema: ZodType<T>): T {
   let raw: unknown;
   try {
     raw = JSON.parse(text);

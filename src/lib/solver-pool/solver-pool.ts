@@ -10,7 +10,7 @@
  * process (jest, the benchmark, `next build`) alive.
  */
 import type { Worker } from 'node:worker_threads';
-import { HttpError, unprocessable } from '../http/errors';
+import { abandoned, unprocessable } from '../http/errors';
 import { SolverBusyError, SolverClosedError, SolverFailedError, SolverQuotaError, SolverTimeoutError } from './errors';
 import type { SolveJob, SolveJobOutcome, SolveJobResult } from './job';
 
@@ -74,13 +74,8 @@ function outcomeError(error: Extract<SolveJobOutcome, { ok: false }>['error']): 
 /** Jobs without an owner take turns together under "", which no real owner name is; they have no limit. */
 const ownerKey = (owner: string | undefined) => owner ?? '';
 
-/**
- * What a queued job rejects with when its request was abandoned. The client is gone, so nobody reads
- * it; an HttpError keeps it out of the server log's unexpected failures.
- */
-function abortError(): Error {
-  return new HttpError(503, 'The solve was abandoned before it started.');
-}
+/** What a queued job rejects with when its request was abandoned. */
+const abortError = () => abandoned('The solve was abandoned before it started.');
 
 export class SolverPool {
   private readonly slots = new Set<Slot>();
