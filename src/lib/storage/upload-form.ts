@@ -37,20 +37,31 @@ export interface AttachmentForm {
   file: { name: string; bytes: Buffer };
 }
 
+/** The text fields of the attachment form, beside its `file`. */
+const TEXT_FIELDS = ['kind', 'pointId', 'caption'] as const;
+
 /**
  * The attachment form's fields, parsed with the shared schema, and its file; one 422 listing every
- * field that needs attention, `file` included when no file was sent.
+ * field that needs attention, `file` included when no file was sent. A text field sent as a file, or
+ * any field sent twice, is named too: taking it as absent would file a point's photo under the whole
+ * plan without a word.
  */
 export async function parseAttachmentForm(form: FormData): Promise<AttachmentForm> {
-  const text = (name: string) => {
-    const value = form.get(name);
-    return typeof value === 'string' ? value : undefined;
-  };
-  const parsed = attachmentFieldsSchema.safeParse({ kind: text('kind'), pointId: text('pointId'), caption: text('caption') });
-  const issues: FieldIssue[] = parsed.success ? [] : zodIssues(parsed.error);
-  const file = form.get('file');
+  const issues: FieldIssue[] = [];
+  const texts: Partial<Record<(typeof TEXT_FIELDS)[number], string>> = {};
+  for (const name of TEXT_FIELDS) {
+    const values = form.getAll(name);
+    if (values.length > 1) issues.push({ path: name, message: 'Send this field once.' });
+    else if (values.length === 1 && typeof values[0] !== 'string') issues.push({ path: name, message: 'Send this field as text, not as a file.' });
+    else if (values.length === 1) texts[name] = values[0] as string;
+  }
+  const parsed = attachmentFieldsSchema.safeParse(texts);
+  if (!parsed.success) issues.push(...zodIssues(parsed.error).filter((issue) => !issues.some((i) => i.path === issue.path)));
+  const files = form.getAll('file');
+  const file = files[0] ?? null;
   const noFile = file === null || typeof file === 'string' || (file.size === 0 && !file.name);
-  if (noFile) issues.push({ path: 'file', message: 'Choose a file to upload.' });
-  if (!parsed.success || noFile) throw unprocessable('Some fields need attention.', issues);
+  if (files.length > 1) issues.push({ path: 'file', message: 'Send one file at a time.' });
+  else if (noFile) issues.push({ path: 'file', message: 'Choose a file to upload.' });
+  if (issues.length > 0 || !parsed.success || noFile) throw unprocessable('Some fields need attention.', issues);
   return { fields: parsed.data, file: { name: file.name, bytes: Buffer.from(await file.arrayBuffer()) } };
 }

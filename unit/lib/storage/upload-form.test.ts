@@ -86,4 +86,24 @@ describe('reading the upload form', () => {
     expect(file.name).toBe('bench.jpg');
     expect([...file.bytes]).toEqual([...bytes]);
   });
+
+  it('a text field sent as a file is refused at that field, not read as absent', async () => {
+    const form = new FormData();
+    form.append('kind', 'photo');
+    // a point's photo whose point id arrived as a file would otherwise be filed under the whole plan
+    form.append('pointId', new Blob(['12']), 'point.txt');
+    form.append('caption', new Blob(['pad from above']), 'caption.txt');
+    form.append('file', new Blob([new Uint8Array([0xff, 0xd8, 0xff])]), 'bench.jpg');
+    expect(await refusal(async () => parseAttachmentForm(await readMultipartForm(formRequest(form))))).toEqual({ status: 422, paths: ['caption', 'pointId'] });
+  });
+
+  it('a field or a file sent twice is refused at its name', async () => {
+    const form = new FormData();
+    form.append('kind', 'photo');
+    form.append('kind', 'instrument');
+    form.append('pointId', '3');
+    form.append('file', new Blob([new Uint8Array([0xff, 0xd8, 0xff])]), 'one.jpg');
+    form.append('file', new Blob([new Uint8Array([0xff, 0xd8, 0xff])]), 'two.jpg');
+    expect(await refusal(async () => parseAttachmentForm(await readMultipartForm(formRequest(form))))).toEqual({ status: 422, paths: ['file', 'kind'] });
+  });
 });
