@@ -191,6 +191,19 @@ describe(`invitation server actions answer hostile forms and tokens with a state
     if (process.env.FUZZ_VERBOSE) console.log('acceptWithNewAccount', counts);
   }, PROPERTY_TIMEOUT_MS);
 
+  test('acceptWithNewAccount sends back at most 1,000 characters of a name far over the limit', async () => {
+    const { token } = await invite('long-name');
+    const before = await databaseState();
+    const form = new FormData();
+    form.append('name', 'N'.repeat(1_000_000));
+    form.append('password', PASSWORD);
+    form.append('confirmPassword', PASSWORD);
+    const answer = await acceptWithNewAccount(token, {}, form);
+    expect(answer.fieldErrors?.name).toMatch(/at most 120 characters/);
+    expect(answer.name).toBe('N'.repeat(1000));
+    expect(await databaseState()).toEqual(before);
+  });
+
   // Found with FUZZ_SEED=891050573: a null form (and any other value that is not a FormData) made acceptWithNewAccount throw a TypeError.
   test.each([null, undefined, 'name=x', {}, { get: () => PASSWORD }, new URLSearchParams({ name: 'Ann', password: PASSWORD, confirmPassword: PASSWORD })])(
     'acceptWithNewAccount answers a form that is not a FormData (%p) field by field, without using the token',

@@ -19,6 +19,14 @@ export interface JoinState {
 
 const SOMETHING_WENT_WRONG = 'Something went wrong on our side. Try again in a moment.';
 
+/**
+ * Most of a typed name sent back into the form after a failed attempt [characters]. A name has at
+ * most 120; text far longer was pasted or scripted, and sending all of it back would answer a
+ * request of any size with a state as large.
+ */
+const NAME_ECHO_LIMIT = 1000;
+const echoName = (name: string) => name.slice(0, NAME_ECHO_LIMIT);
+
 // A server action takes its arguments as the client sent them, so the form may be anything: what is
 // not a FormData counts as an empty form, and a file where text belongs as an empty field.
 const text = (formData: unknown, key: string) => {
@@ -46,14 +54,14 @@ export async function acceptWithNewAccount(token: string, _previous: NewAccountS
       const field = issue.path[0];
       if ((field === 'name' || field === 'password' || field === 'confirmPassword') && !fieldErrors[field]) fieldErrors[field] = issue.message;
     }
-    return { fieldErrors, name: raw.name };
+    return { fieldErrors, name: echoName(raw.name) };
   }
 
   let joined: { studyId: number; email: string };
   try {
     joined = await acceptInvitationWithNewAccount(token, { name: parsed.data.name, password: parsed.data.password });
   } catch (error) {
-    return { message: failureMessage(error), name: raw.name };
+    return { message: failureMessage(error), name: echoName(raw.name) };
   }
   redirect(`/signin?joined=1&email=${encodeURIComponent(joined.email)}&callbackUrl=${encodeURIComponent(`/studies/${joined.studyId}`)}`);
 }
