@@ -6,6 +6,11 @@ function tooLarge(maxBytes: number): HttpError {
   return new HttpError(413, message, [{ path: '(body)', message }]);
 }
 
+function cutOff(): HttpError {
+  const message = 'The request body was cut off before it ended; send it again.';
+  return new HttpError(400, message, [{ path: '(body)', message }]);
+}
+
 /**
  * The request body's bytes, read to at most `maxBytes`, so an oversized body is refused before it is
  * parsed. Trusts neither Content-Length nor its absence: the stream itself is counted. `refuse` makes
@@ -19,7 +24,15 @@ export async function readBodyBytes(request: Request, maxBytes: number, refuse: 
   const chunks: Uint8Array[] = [];
   let size = 0;
   for (;;) {
-    const { done, value } = await reader.read();
+    let chunk: ReadableStreamReadResult<Uint8Array>;
+    try {
+      chunk = await reader.read();
+    } catch {
+      // the connection broke mid-body (the client went away, as runaway clients do when they stop):
+      // a fault of the request, not of the server, so it is answered, not logged as a failure
+      throw cutOff();
+    }
+    const { done, value } = chunk;
     if (done) break;
     size += value.byteLength;
     if (size > maxBytes) {

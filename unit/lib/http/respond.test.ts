@@ -84,4 +84,19 @@ describe('parseJsonBody', () => {
     expect(error.status).toBe(422);
     expect(error.issues[0].path).toBe('(body)');
   });
+  test('a body cut off by a broken connection is a 400 naming the body, not a server failure', async () => {
+    // what Node's request stream does when the client resets the connection mid-body
+    const reset = Object.assign(new Error('aborted'), { code: 'ECONNRESET' });
+    const body = new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(new TextEncoder().encode('{"a":'));
+        controller.error(reset);
+      },
+    });
+    const request = new Request('http://127.0.0.1/api/solve', { method: 'POST', body, headers: { 'content-type': 'application/json' }, duplex: 'half' } as RequestInit);
+    const error = (await parseJsonBody(request, anyObject).catch((e: unknown) => e)) as HttpError;
+    expect(error).toBeInstanceOf(HttpError);
+    expect(error.status).toBe(400);
+    expect(error.issues).toEqual([{ path: '(body)', message: expect.stringMatching(/cut off/) }]);
+  });
 });
