@@ -2,7 +2,7 @@ import 'server-only';
 import type { SessionUser } from '../auth/session-user';
 import { loadPlanReport } from './load';
 import { fileStem } from './notes';
-import { renderPlanPdf } from './pdf';
+import { drawPlanPdf } from './pdf-thread';
 import { buildPlanZip } from './zip';
 
 /** A plan's report as a file to download, for anyone who can see the study (404 otherwise). */
@@ -15,7 +15,7 @@ export interface ReportFile {
 
 export async function planReportPdf(viewer: SessionUser, studyId: number, planId: number): Promise<ReportFile> {
   const report = await loadPlanReport(viewer, studyId, planId);
-  return { body: await renderPlanPdf(report), contentType: 'application/pdf', fileName: `${fileStem(report.plan.name, planId)}-report.pdf` };
+  return { body: await drawPlanPdf(report), contentType: 'application/pdf', fileName: `${fileStem(report.plan.name, planId)}-report.pdf` };
 }
 
 export async function planReportZip(viewer: SessionUser, studyId: number, planId: number): Promise<ReportFile> {

@@ -3,6 +3,7 @@ import Papa from 'papaparse';
 import { loadPlanReport } from '../../../src/lib/report/load';
 import { planReportPdf, planReportZip } from '../../../src/lib/report/exports';
 import { db, SEEDED, sessionUserByEmail, statusOf, studyIdByName } from '../../support/database';
+import { drawPdfsFromSources } from '../../support/source-pdf-threads';
 
 /**
  * The report gathered from the seeded demo lab (database/seeds): the plan sent for review, "Probe tilt
@@ -16,6 +17,7 @@ describe('loadPlanReport', () => {
   let planId: number;
 
   beforeAll(async () => {
+    drawPdfsFromSources();
     padId = await studyIdByName(SEEDED.padStudy);
     railId = await studyIdByName(SEEDED.railStudy);
     planId = (await db('sweep_plans').where({ study_id: padId, name: REVIEW_PLAN }).first('id')).id;
