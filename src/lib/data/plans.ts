@@ -17,6 +17,7 @@ import { planCreateSchema, type PlanCreate, type PlanTransitionInput, type PlanU
 import { recordAudit } from './audit';
 import { retryOnDeadlock } from '../db-retry';
 import { fromJsonColumn, toJsonColumn } from './json-column';
+import { planOfStudy } from './plan-lookup';
 import { beginPredictionRun, failInterruptedRun, launchPredictionRun } from './plan-predictions';
 
 /** A sweep plan as the API shows it; values SI. */
@@ -202,11 +203,8 @@ type DesignRow = Pick<
   'name' | 'setup_id' | 'state' | 'axes' | 'repeats' | 'reference_every' | 'order_mode' | 'shuffle_seed' | 'minutes_per_point' | 'notes'
 >;
 
-async function lockPlan(trx: Knex.Transaction, studyId: number, planId: number): Promise<DesignRow> {
-  const row: DesignRow | undefined = await trx('sweep_plans').where({ id: planId, study_id: studyId }).forUpdate().first();
-  if (!row) throw notFound('No such plan in this study.');
-  return row;
-}
+const lockPlan = (trx: Knex.Transaction, studyId: number, planId: number): Promise<DesignRow> =>
+  planOfStudy<DesignRow>(trx, studyId, planId, ['*'], 'update');
 
 function refuseUnlessDraft(row: DesignRow): void {
   if (row.state !== 'draft') throw conflict(`This plan is ${PLAN_STATE_LABELS[row.state]}: only a draft changes its axes.`);

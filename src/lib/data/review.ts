@@ -3,7 +3,6 @@ import type { Knex } from 'knex';
 import { db } from '../db';
 import { requireStudyAccess } from '../auth/access';
 import type { SessionUser } from '../auth/session-user';
-import { notFound } from '../http/errors';
 import type { PlanAxis } from '../plans/axes';
 import type { PlanState } from '../plans/states';
 import { assembleReview, type ReviewPoint, type ReviewReading } from '../review/assemble';
@@ -12,6 +11,7 @@ import type { MeasurementMethod } from '../../physics/measurement/methods';
 import type { Derivation } from '../../physics/measurement/types';
 import { latestFit } from './plan-fits';
 import { fromJsonColumn } from './json-column';
+import { planOfStudy, type PlanLock } from './plan-lookup';
 import { planPointRows } from './plan-points';
 
 /**
@@ -28,14 +28,8 @@ interface PlanHead {
   review_tolerance: number;
 }
 
-export async function lockablePlanHead(trx: Knex | Knex.Transaction, studyId: number, planId: number, lock: 'update' | 'share' | null = null): Promise<PlanHead> {
-  const query = trx('sweep_plans').where({ id: planId, study_id: studyId });
-  if (lock === 'update') query.forUpdate();
-  if (lock === 'share') query.forShare();
-  const row: PlanHead | undefined = await query.first('id', 'study_id', 'name', 'state', 'axes', 'review_tolerance');
-  if (!row) throw notFound('No such plan in this study.');
-  return row;
-}
+export const lockablePlanHead = (trx: Knex | Knex.Transaction, studyId: number, planId: number, lock: PlanLock = null): Promise<PlanHead> =>
+  planOfStudy<PlanHead>(trx, studyId, planId, ['id', 'study_id', 'name', 'state', 'axes', 'review_tolerance'], lock);
 
 /** The plan's points as the review reads them. */
 export const reviewPoints = (trx: Knex | Knex.Transaction, planId: number): Promise<ReviewPoint[]> => planPointRows(trx, planId);
