@@ -113,9 +113,10 @@ export async function runFit(actor: SessionUser, studyId: number, planId: number
   }
   const head = await lockablePlanHead(db, studyId, planId);
   refuseClosedReview(head.state);
-  const review = await reviewWithin(db, head, input.quantity, null);
+  const points = await reviewPoints(db, planId);
+  const review = await reviewWithin(db, head, input.quantity, null, points);
   const predictedByKey = new Map<string, PointPrediction>();
-  for (const point of await reviewPoints(db, planId)) if (point.predicted) predictedByKey.set(poseKey(point.pose), point.predicted);
+  for (const point of points) if (point.predicted) predictedByKey.set(poseKey(point.pose), point.predicted);
   const all: PosePoint[] = review.poses.flatMap((p) => (predictedByKey.has(p.key) ? [{ key: p.key, pose: p.pose, predicted: predictedByKey.get(p.key)! }] : []));
   const used = review.poses.filter((p) => p.measured !== null && p.predicted !== null && predictedByKey.has(p.key));
   if (used.length < 2) {

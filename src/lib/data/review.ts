@@ -75,9 +75,16 @@ export async function planDecisions(trx: Knex | Knex.Transaction, planId: number
 }
 
 /** Everything the review of one quantity needs, read in one transaction so the parts agree. */
-export async function reviewWithin(trx: Knex | Knex.Transaction, head: PlanHead, quantity: ReviewQuantity, fit?: FitResult | null): Promise<PlanReview> {
+export async function reviewWithin(
+  trx: Knex | Knex.Transaction,
+  head: PlanHead,
+  quantity: ReviewQuantity,
+  fit?: FitResult | null,
+  /** the plan's points when the caller has read them already (a fit needs them too) */
+  pointsRead?: ReviewPoint[],
+): Promise<PlanReview> {
   const [points, readings, marks, decisions, latest] = [
-    await reviewPoints(trx, head.id),
+    pointsRead ?? await reviewPoints(trx, head.id),
     await currentReadings(trx, head.id),
     await outlierMarks(trx, head.id),
     await planDecisions(trx, head.id),
