@@ -27,12 +27,14 @@ interface PlanViewProps {
   planId: number;
   allowedActions: readonly string[];
   initialSetups: Setup[];
+  /** the plan as the server page read it, shown at once while SWR revalidates */
+  initialPlan?: Plan;
 }
 
 /** One plan: its state and next step, predictions, charts and run sheet; a draft is editable by researchers. */
-export function PlanView({ studyId, planId, allowedActions, initialSetups }: PlanViewProps) {
+export function PlanView({ studyId, planId, allowedActions, initialSetups, initialPlan }: PlanViewProps) {
   const canEdit = allowedActions.includes('study.edit');
-  const { plan, error, mutate: mutatePlan } = usePlan(studyId, planId);
+  const { plan, error, mutate: mutatePlan } = usePlan(studyId, planId, initialPlan);
   const { points, mutate: mutatePoints } = usePlanPoints(studyId, planId);
   const { setups } = useStudySetups(studyId, initialSetups);
   const { mutate } = useSWRConfig();

@@ -41,6 +41,8 @@ interface LogbookProps {
   planId: number;
   viewerId: number;
   allowedActions: readonly string[];
+  /** the plan as the server page read it, shown at once while SWR revalidates */
+  initialPlan?: Plan;
 }
 
 type Filter = 'all' | 'open';
@@ -122,9 +124,9 @@ function PredictedLine({ point }: { point: PlanPoint }) {
  * next to the prediction, correct with a reason, import a CSV, attach photos and files, and send the
  * plan for review. Supervisors and admins see the same page read-only.
  */
-export function Logbook({ studyId, planId, viewerId, allowedActions }: LogbookProps) {
+export function Logbook({ studyId, planId, viewerId, allowedActions, initialPlan }: LogbookProps) {
   const canLog = allowedActions.includes('readings.log');
-  const { plan, error, mutate: mutatePlan } = usePlan(studyId, planId);
+  const { plan, error, mutate: mutatePlan } = usePlan(studyId, planId, initialPlan);
   const { points } = usePlanPoints(studyId, planId);
   const { readings, mutate: mutateReadings } = usePlanReadings(studyId, planId);
   const { acknowledgement, mutate: mutateAcknowledgement } = useCautionAcknowledgement(studyId, planId);

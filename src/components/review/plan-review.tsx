@@ -4,6 +4,7 @@ import Link from 'next/link';
 import { useCallback, useMemo, useState } from 'react';
 import { useSWRConfig } from 'swr';
 import { PlanStateBadge } from '@/components/plans/plan-badges';
+import type { Plan } from '@/components/plans/plan-types';
 import { poseLabel } from '@/components/readings/pose-label';
 import { Alert } from '@/components/ui/alert';
 import { buttonClasses } from '@/components/ui/button';
@@ -29,6 +30,8 @@ interface PlanReviewProps {
   planId: number;
   /** the viewer's allowed actions on the study (permissions.ts) */
   allowedActions: readonly string[];
+  /** the plan as the server page read it, shown at once while SWR revalidates */
+  initialPlan?: Plan;
 }
 
 function QuantitySwitch({ value, onChange }: { value: ReviewQuantity; onChange: (q: ReviewQuantity) => void }) {
@@ -63,14 +66,14 @@ function pointOptions(review: Review | undefined) {
  * A plan's review: predicted against measured for k, M or η, the readings behind it, what reviewers
  * set aside and fitted, comments, and the supervisor's decision with its history.
  */
-export function PlanReview({ studyId, planId, allowedActions }: PlanReviewProps) {
+export function PlanReview({ studyId, planId, allowedActions, initialPlan }: PlanReviewProps) {
   const canAnalyse = allowedActions.includes('review.analyse');
   const canComment = allowedActions.includes('comments.write');
   const canDecide = allowedActions.includes('plan.decide');
   const canLog = allowedActions.includes('readings.log');
   const [quantity, setQuantity] = useState<ReviewQuantity>('coupling');
   const [commentTarget, setCommentTarget] = useState<CommentTarget | null>(null);
-  const { plan, error: planError, mutate: mutatePlan } = usePlan(studyId, planId);
+  const { plan, error: planError, mutate: mutatePlan } = usePlan(studyId, planId, initialPlan);
   const { review, error } = usePlanReview(studyId, planId, quantity);
   const refreshReview = useRefreshPlanReview(studyId, planId);
   const { mutate } = useSWRConfig();

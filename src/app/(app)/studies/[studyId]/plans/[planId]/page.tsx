@@ -24,7 +24,7 @@ export default async function PlanPage({ params }: { params: Params }) {
       study={study}
       page="Plans"
     >
-      <PlanView studyId={study.id} planId={plan.id} allowedActions={study.allowedActions} initialSetups={setups} />
+      <PlanView studyId={study.id} planId={plan.id} allowedActions={study.allowedActions} initialSetups={setups} initialPlan={plan} />
     </StudyPageFrame>
   );
 }

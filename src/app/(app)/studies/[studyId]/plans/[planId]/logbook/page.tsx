@@ -16,7 +16,7 @@ export default async function LogbookPage({ params }: { params: Params }) {
   const { study, user, plan } = await loadPlanPage(studyId, planId);
   return (
     <StudyPageFrame study={study} page="Plans">
-      <Logbook studyId={study.id} planId={plan.id} viewerId={user.id} allowedActions={study.allowedActions} />
+      <Logbook studyId={study.id} planId={plan.id} viewerId={user.id} allowedActions={study.allowedActions} initialPlan={plan} />
     </StudyPageFrame>
   );
 }

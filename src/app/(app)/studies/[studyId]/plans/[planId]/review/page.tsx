@@ -16,7 +16,7 @@ export default async function PlanReviewPage({ params }: { params: Params }) {
   const { study, plan } = await loadPlanPage(studyId, planId);
   return (
     <StudyPageFrame study={study} page="Plans">
-      <PlanReview studyId={study.id} planId={plan.id} allowedActions={study.allowedActions} />
+      <PlanReview studyId={study.id} planId={plan.id} allowedActions={study.allowedActions} initialPlan={plan} />
     </StudyPageFrame>
   );
 }
