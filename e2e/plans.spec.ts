@@ -116,6 +116,20 @@ test('a plan that is not on the study is the real not-found page', async ({ page
   expect(response?.status()).toBe(404);
 });
 
+test('the plan and review pages arrive with the plan drawn, not a placeholder', async ({ page }) => {
+  await signIn(page, DEMO.researcher);
+  const studyId = await openPlans(page);
+  const plans: { id: number; name: string; state: string }[] = (await (await page.request.get(`/api/studies/${studyId}/plans`)).json()).plans;
+  const plan = plans.find((p) => p.state === 'in_review')!;
+  // the server's HTML, before any script runs: the page shows what the server already read
+  for (const path of ['', '/review']) {
+    const html = await (await page.request.get(`/studies/${studyId}/plans/${plan.id}${path}`)).text();
+    // the page's own heading, drawn by the server (the name also travels in the page's data, so look for the heading)
+    const name = plan.name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+    expect(html, path || '/').toMatch(new RegExp(`<h1[^>]*>(Review: (<!-- -->)?)?${name}</h1>`));
+  }
+});
+
 test('a plan changed while it is being computed ends with the new points, every one predicted by the new run', async ({ page }) => {
   await signIn(page, DEMO.researcher);
   const studyId = await openPlans(page);
