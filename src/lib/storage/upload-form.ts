@@ -50,10 +50,10 @@ export async function parseAttachmentForm(form: FormData): Promise<AttachmentFor
   const issues: FieldIssue[] = [];
   const texts: Partial<Record<(typeof TEXT_FIELDS)[number], string>> = {};
   for (const name of TEXT_FIELDS) {
-    const values = form.getAll(name);
-    if (values.length > 1) issues.push({ path: name, message: 'Send this field once.' });
-    else if (values.length === 1 && typeof values[0] !== 'string') issues.push({ path: name, message: 'Send this field as text, not as a file.' });
-    else if (values.length === 1) texts[name] = values[0] as string;
+    const [value, ...more] = form.getAll(name);
+    if (more.length > 0) issues.push({ path: name, message: 'Send this field once.' });
+    else if (typeof value === 'string') texts[name] = value;
+    else if (value !== undefined) issues.push({ path: name, message: 'Send this field as text, not as a file.' });
   }
   const parsed = attachmentFieldsSchema.safeParse(texts);
   if (!parsed.success) issues.push(...zodIssues(parsed.error).filter((issue) => !issues.some((i) => i.path === issue.path)));
