@@ -273,6 +273,11 @@ async function readPhase(baseUrl, sessions, ids, { connections = READ_CONNECTION
 
 const sleep = (ms) => new Promise((resolve) => setTimeout(resolve, ms));
 
+const SOLVE_LABEL = 'POST /api/solve';
+
+/** An autocannon request posting `body` (JSON text) to /api/solve, tallied under SOLVE_LABEL. */
+const solveRequest = (body, more = {}) => ({ label: SOLVE_LABEL, method: 'POST', path: '/api/solve', headers: { 'content-type': 'application/json' }, body, ...more });
+
 /**
  * One POST of `body` to /api/solve over `agent`, with node:http: a plain client costs the shared CPU
  * far less than fetch() (undici with web streams), whose cost on this machine slowed the app it was
@@ -335,11 +340,10 @@ async function politeSolver(baseUrl, cookie, body, until, tally, onRefusal) {
  */
 async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title }) {
   const dashboard = { label: 'GET /dashboard', method: 'GET', path: '/dashboard' };
-  const solveLabel = 'POST /api/solve';
   const body = JSON.stringify(HEAVY_SOLVE);
   const retry = { 429: 0, 503: 0 };
   const noRetry = { 429: 0, 503: 0 };
-  const tallies = new Map([[dashboard.label, new Tally()], [solveLabel, new Tally()]]);
+  const tallies = new Map([[dashboard.label, new Tally()], [SOLVE_LABEL, new Tally()]]);
   const solveConnections = GREEDY_SOLVERS * GREEDY_CONNECTIONS + SINGLE_SOLVERS;
   const behaviour = polite ? 'waiting out Retry-After' : 'ignoring Retry-After';
   step(`${title.toLowerCase()}: ${solveConnections} connections of ${GREEDY_SOLVERS + SINGLE_SOLVERS} users flood POST /api/solve (${behaviour}) while ${FLOOD_READERS} users read /dashboard ${USER_RATE}/s, ${duration} s…`);
@@ -362,10 +366,10 @@ async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title 
   const generatorDelay = monitorEventLoopDelay({ resolution: 10 });
   generatorDelay.enable();
   const solvers = solverCookies.map((cookie) => (polite
-    ? politeSolver(baseUrl, cookie, body, until, tallies.get(solveLabel), countRetryAfter)
+    ? politeSolver(baseUrl, cookie, body, until, tallies.get(SOLVE_LABEL), countRetryAfter)
     : runCannon({
       url: baseUrl,
-      requests: [{ label: solveLabel, method: 'POST', path: '/api/solve', headers: { 'content-type': 'application/json' }, body, onResponse: (status, _body, _context, headers) => countRetryAfter(status, headers?.['retry-after']) }],
+      requests: [solveRequest(body, { onResponse: (status, _body, _context, headers) => countRetryAfter(status, headers?.['retry-after']) })],
       cookie,
       duration,
       tallies,
@@ -377,7 +381,7 @@ async function floodPhase(baseUrl, sessions, { polite, seconds: duration, title 
   const [solveResults, readResults] = await Promise.all([Promise.all(solvers), Promise.all(readers)]);
   generatorDelay.disable();
   const seconds = (performance.now() - started) / 1000;
-  const s = tallies.get(solveLabel);
+  const s = tallies.get(SOLVE_LABEL);
   const d = tallies.get(dashboard.label);
   const ds = d.summary();
   const solvedLatencies = s.latencies.filter((_, i) => s.order[i] === 200).sort((a, b) => a - b);
@@ -489,16 +493,15 @@ const LIGHT_SOLVE = {
 async function warmUp(baseUrl, sessions, ids) {
   step(`warming up for ${WARM_UP_SECONDS} s: 25 users reading, 16 connections posting light solves…`);
   const endpoints = readEndpoints(ids);
-  const solveLabel = 'POST /api/solve';
-  const tallies = new Map([...endpoints.map((e) => [e.label, new Tally()]), [solveLabel, new Tally()]]);
-  const solve = { label: solveLabel, method: 'POST', path: '/api/solve', headers: { 'content-type': 'application/json' }, body: JSON.stringify(LIGHT_SOLVE) };
+  const tallies = new Map([...endpoints.map((e) => [e.label, new Tally()]), [SOLVE_LABEL, new Tally()]]);
+  const solve = solveRequest(JSON.stringify(LIGHT_SOLVE));
   const readers = sessions.slice(0, 25).map((cookie, i) => {
     const k = i % endpoints.length;
     return runCannon({ url: baseUrl, requests: [...endpoints.slice(k), ...endpoints.slice(0, k)], cookie, duration: WARM_UP_SECONDS, tallies });
   });
   const solvers = sessions.slice(25, 27).flatMap((cookie) => Array.from({ length: 8 }, () => runCannon({ url: baseUrl, requests: [solve], cookie, duration: WARM_UP_SECONDS, tallies })));
   const results = await Promise.all([...readers, ...solvers]);
-  const unexpected = [...tallies].flatMap(([label, t]) => [...t.statuses].filter(([status]) => status !== 200 && !(label === solveLabel && status === 429)).map(([status, n]) => `${label} ${status} ×${n}`));
+  const unexpected = [...tallies].flatMap(([label, t]) => [...t.statuses].filter(([status]) => status !== 200 && !(label === SOLVE_LABEL && status === 429)).map(([status, n]) => `${label} ${status} ×${n}`));
   if (sumErrors(results) || unexpected.length) throw new Error(`the warm-up failed: ${sumErrors(results)} socket errors or timeouts; ${unexpected.join(', ') || 'no unexpected statuses'}`);
   // the light solves still queued finish in milliseconds; the parts start with an idle solver
   await sleep(1000);
